@@ -1,0 +1,40 @@
+# Couplewise: two commands do all set-up on a fresh machine.
+#   make serve   set up, build the site and serve it at http://127.0.0.1:8000
+#   make test    set up, then every test (unit, data, site build, browser)
+VENV   ?= .venv
+PY     := $(VENV)/bin/python
+HOST   ?= 127.0.0.1
+PORT   ?= 8000
+PREFIX ?= /
+
+.PHONY: setup site serve test dist bench clean chromium
+
+setup: $(VENV)/.installed node_modules/.installed
+
+$(VENV)/.installed: requirements.txt pyproject.toml
+	python3 -m venv $(VENV)
+	$(VENV)/bin/pip install -q --disable-pip-version-check -r requirements.txt
+	$(VENV)/bin/pip install -q --disable-pip-version-check --no-deps --no-build-isolation -e .
+	touch $@
+
+node_modules/.installed: package.json package-lock.json
+	npm ci --no-audit --no-fund --loglevel=error
+	touch $@
+
+# Build into a temporary folder, then swap: a failed build leaves the previous site intact.
+site: setup
+	rm -rf site.tmp
+	$(VENV)/bin/mkdocs build --strict --quiet -d site.tmp
+	rm -rf site.old && { [ ! -d site ] || mv site site.old; } && mv site.tmp site && rm -rf site.old
+
+serve: site
+	$(PY) -m sitebuild.serve site --host $(HOST) --port $(PORT) --prefix $(PREFIX)
+
+chromium:
+	@build/ensure-chromium.sh
+
+test: setup chromium
+	$(VENV)/bin/pytest
+
+clean:
+	rm -rf site site.tmp site.old dist

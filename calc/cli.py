@@ -1,0 +1,248 @@
+"""The ``couplewise`` command line: a thin face over :mod:`calc.api`.
+
+Human text by default, ``--json`` for one JSON object on stdout. Bad input of any kind: exit
+status 2 and one line on stderr naming the field, the value and what is allowed.
+"""
+
+import argparse
+import json
+import sys
+
+from . import api
+from .errors import InputError
+
+# fields printed first, in this order, by the text output of each command
+HEADLINE = {
+    "electrode": ["id", "potential_V", "standard_potential_V", "temp_C"],
+    "couple": ["anode", "cathode", "cell_potential_V", "standard_cell_potential_V", "n_electrons",
+               "delta_G_kJ_per_mol", "equilibrium_constant", "overall_reaction"],
+    "convert": ["value_V", "from", "to", "temp_C"],
+    "activity": ["species", "gamma", "A", "B", "ionic_strength", "model"],
+    "joint": ["anode", "cathode", "basis", "delta_E_V", "delta_E_range_V", "allowable_V", "verdict",
+              "verdict_text", "rate_mm_per_year"],
+    "matrix": ["env", "materials"],
+    "rate": ["material", "penetration_mm_per_year", "mass_loss_g_per_m2_day"],
+}
+
+
+class _Parser(argparse.ArgumentParser):
+    def error(self, message):  # one line, exit 2, no usage dump
+        sys.stderr.write(f"couplewise: {message} (see 'couplewise {self.prog.split()[-1]} --help')\n"
+                         if " " in self.prog else f"couplewise: {message} (see 'couplewise --help')\n")
+        sys.exit(2)
+
+
+def _pairs(values, field, number=True):
+    out = {}
+    for item in values or []:
+        if "=" not in item:
+            raise InputError(field, item, "SPECIES=VALUE, e.g. Zn2+=0.1")
+        key, _, val = item.partition("=")
+        if number:
+            try:
+                out[key.strip()] = float(val)
+            except ValueError:
+                raise InputError(f"{field} {key.strip()}", val, "a number") from None
+        else:
+            out[key.strip()] = val
+    return out
+
+
+def _conditions(p):
+    p.add_argument("--temp", type=float, default=None, metavar="C", help="temperature [°C], default 25")
+    p.add_argument("--activity", action="append", metavar="SP=A", help="activity of a species [unitless]")
+    p.add_argument("--molality", action="append", metavar="SP=M", help="molality of a species [mol/kg]")
+    g = p.add_mutually_exclusive_group()
+    g.add_argument("--ionic-strength", type=float, metavar="I", help="ionic strength [mol/kg]")
+    g.add_argument("--env", metavar="ENV", help="take the ionic strength from a named environment")
+    p.add_argument("--model", metavar="NAME", help="activity model: ideal, limiting, extended, davies, truesdell-jones")
+    p.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH (sets a(H+) and a(OH-))")
+    p.add_argument("--pressure", action="append", metavar="GAS=ATM", help="partial pressure of a gas [atm]")
+
+
+def _conditions_request(ns):
+    req = {}
+    if ns.temp is not None:
+        req["temp_C"] = ns.temp
+    for opt, key, field in (("activity", "activities", "--activity"), ("molality", "molalities", "--molality"),
+                            ("pressure", "pressures", "--pressure")):
+        vals = _pairs(getattr(ns, opt), field)
+        if vals:
+            req[key] = vals
+    if ns.ionic_strength is not None:
+        req["ionic_strength"] = ns.ionic_strength
+    if ns.env:
+        req["env"] = ns.env
+    if ns.model:
+        req["model"] = ns.model
+    if ns.pH is not None:
+        req["pH"] = ns.pH
+    return req
+
+
+def build_parser():
+    """The argument parser with every sub-command."""
+    p = _Parser(prog="couplewise", description="Galvanic couples, electrode potentials and joints, offline.")
+    sub = p.add_subparsers(dest="command", parser_class=_Parser)
+
+    e = sub.add_parser("electrode", help="corrected potential of one half-reaction")
+    e.add_argument("id")
+    _conditions(e)
+    c = sub.add_parser("couple", help="which couple is the anode, cell potential, ΔG, K")
+    c.add_argument("a")
+    c.add_argument("b")
+    _conditions(c)
+    v = sub.add_parser("convert", help="convert a reading between reference electrodes")
+    v.add_argument("value", type=float, help="the reading [V]")
+    v.add_argument("--from", dest="from_ref", required=True, metavar="REF")
+    v.add_argument("--to", dest="to_ref", required=True, metavar="REF")
+    v.add_argument("--temp", type=float, default=None, metavar="C")
+    v.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH, for RHE")
+    a = sub.add_parser("activity", help="activity coefficient of an ion")
+    a.add_argument("species")
+    a.add_argument("--ionic-strength", type=float, required=True, metavar="I")
+    a.add_argument("--model", metavar="NAME")
+    a.add_argument("--temp", type=float, default=None, metavar="C")
+    j = sub.add_parser("joint", help="judge a dissimilar-metal joint in an environment")
+    j.add_argument("a")
+    j.add_argument("b")
+    j.add_argument("--env", required=True)
+    j.add_argument("--area-ratio", type=float, metavar="CATHODE_TO_ANODE")
+    m = sub.add_parser("matrix", help="every pair of materials in an environment")
+    m.add_argument("--env", required=True)
+    m.add_argument("--materials", metavar="A,B,...")
+    m.add_argument("--csv", action="store_true", help="write CSV instead of text")
+    r = sub.add_parser("rate", help="ASTM G102 penetration and mass-loss rate from a current density")
+    r.add_argument("--material", required=True)
+    r.add_argument("--current-density", type=float, required=True, metavar="UA_PER_CM2")
+    d = sub.add_parser("data", help="maintainer tools for the dataset")
+    dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
+    dc = dsub.add_parser("check", help="validate a data folder; every problem as file:record:field: message")
+    dc.add_argument("dir", nargs="?", default=None)
+    for sp in (e, c, v, a, j, m, r):
+        sp.add_argument("--json", action="store_true", help="print one JSON object")
+    return p
+
+
+def _request(ns):
+    cmd = ns.command
+    if cmd == "electrode":
+        return {"id": ns.id, **_conditions_request(ns)}
+    if cmd == "couple":
+        return {"a": ns.a, "b": ns.b, **_conditions_request(ns)}
+    if cmd == "convert":
+        req = {"value_V": ns.value, "from": ns.from_ref, "to": ns.to_ref}
+        if ns.temp is not None:
+            req["temp_C"] = ns.temp
+        if ns.pH is not None:
+            req["pH"] = ns.pH
+        return req
+    if cmd == "activity":
+        req = {"species": ns.species, "ionic_strength": ns.ionic_strength}
+        if ns.model:
+            req["model"] = ns.model
+        if ns.temp is not None:
+            req["temp_C"] = ns.temp
+        return req
+    if cmd == "joint":
+        req = {"a": ns.a, "b": ns.b, "env": ns.env}
+        if ns.area_ratio is not None:
+            req["area_ratio"] = ns.area_ratio
+        return req
+    if cmd == "matrix":
+        req = {"env": ns.env}
+        if ns.materials:
+            req["materials"] = [s.strip() for s in ns.materials.split(",") if s.strip()]
+        return req
+    if cmd == "rate":
+        return {"material": ns.material, "current_density_uA_per_cm2": ns.current_density}
+    raise InputError("command", cmd, "a known command")
+
+
+def _fmt(value):
+    if isinstance(value, float):
+        return f"{value:.6g}"
+    if isinstance(value, list):
+        return "[" + ", ".join(_fmt(v) for v in value) + "]"
+    if value is None:
+        return "n/a"
+    return str(value)
+
+
+def format_text(command, result):
+    """Human-readable text of a result: headline numbers, derivation, warnings, sources."""
+    lines = []
+    for key in HEADLINE.get(command, []):
+        if key in result:
+            lines.append(f"{key}: {_fmt(result[key])}")
+    steps = result.get("steps") or []
+    if steps:
+        lines.append("")
+        lines.append("Derivation:")
+        for i, st in enumerate(steps, 1):
+            lines.append(f"  {i}. {st.get('title', '')}")
+            for part in ("formula", "substituted", "result"):
+                if st.get(part):
+                    lines.append(f"       {st[part]}")
+    for w in result.get("warnings") or []:
+        lines.append(f"warning: {w.get('message', w) if isinstance(w, dict) else w}")
+    for c in result.get("cautions") or []:
+        lines.append(f"caution: {c}")
+    if result.get("sources"):
+        lines.append("sources: " + ", ".join(result["sources"]))
+    if result.get("data_version"):
+        lines.append(f"data version: {result['data_version']}")
+    return "\n".join(lines)
+
+
+def _data_check(directory):
+    try:
+        from sitebuild.validate import check_folder
+    except ImportError:
+        sys.stderr.write("couplewise: 'data check' needs the project's build tools (pyyaml, jsonschema): run it from the project's .venv\n")
+        return 2
+    problems = check_folder(directory)
+    for prob in problems:
+        print(prob)
+    errors = [p for p in problems if not str(p).startswith("warning")]
+    print(f"{len(errors)} problem(s), {len(problems) - len(errors)} warning(s)", file=sys.stderr)
+    return 1 if errors else 0
+
+
+def main(argv=None):
+    """Run the command line; returns the exit status."""
+    parser = build_parser()
+    ns = parser.parse_args(argv)
+    if ns.command is None:
+        parser.print_help()
+        return 2
+    if ns.command == "data":
+        if ns.data_command != "check":
+            sys.stderr.write("couplewise: data needs a sub-command: check\n")
+            return 2
+        return _data_check(ns.dir)
+    try:
+        request = _request(ns)
+    except InputError as exc:
+        sys.stderr.write(f"couplewise: {exc}\n")
+        return 2
+    out = api.call(ns.command, request)
+    if not out["ok"]:
+        sys.stderr.write(f"couplewise: {out['error']['message']}\n")
+        return 2
+    result = out["result"]
+    if getattr(ns, "json", False):
+        print(json.dumps(result, ensure_ascii=False, allow_nan=False))
+    elif ns.command == "matrix" and ns.csv:
+        print(result.get("csv", ""), end="")
+    else:
+        print(format_text(ns.command, result))
+    return 0
+
+
+def run():  # console-script entry
+    sys.exit(main())
+
+
+if __name__ == "__main__":  # pragma: no cover
+    run()

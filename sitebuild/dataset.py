@@ -1,0 +1,85 @@
+"""Bundle the YAML dataset into one JSON-ready dict with a content hash as its version.
+
+Build-time only (CPython with PyYAML). The bundle is validated first: any problem stops the
+bundling with every problem listed (see :mod:`sitebuild.validate`).
+"""
+
+import datetime
+import hashlib
+import json
+import os
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+PROJECT_DATA = os.path.join(os.path.dirname(HERE), "data")
+
+#: file name -> top-level key
+FILES = {
+    "half_reactions.yaml": "half_reactions",
+    "reference_electrodes.yaml": "reference_electrodes",
+    "materials.yaml": "materials",
+    "environments.yaml": "environments",
+    "ions.yaml": "ions",
+    "sources.yaml": "sources",
+}
+
+
+class DataProblems(Exception):
+    """The data folder has problems; ``problems`` lists them all as file:record:field: message."""
+
+    def __init__(self, problems):
+        self.problems = list(problems)
+        super().__init__(f"{len(self.problems)} data problem(s):\n" + "\n".join(self.problems))
+
+
+def read_folder(data_dir):
+    """Read every dataset file of a folder with the strict loader. Returns (raw dict, problems)."""
+    from .yamlsafe import load_file
+
+    raw, problems = {}, []
+    for fname, key in FILES.items():
+        path = os.path.join(data_dir, fname)
+        if not os.path.exists(path):
+            problems.append(f"{fname}:-:-: file is missing")
+            continue
+        doc, probs = load_file(path)
+        problems.extend(probs)
+        if isinstance(doc, dict):
+            raw[key] = doc.get(key, [])
+    return raw, problems
+
+
+def bundle_from_raw(raw):
+    """Add the version (content hash) and date to the records."""
+    body = {key: raw.get(key, []) for key in FILES.values()}
+    text = json.dumps(body, sort_keys=True, ensure_ascii=False, separators=(",", ":"))
+    digest = hashlib.sha256(text.encode("utf-8")).hexdigest()[:12]
+    body["version"] = digest
+    body["date"] = os.environ.get("COUPLEWISE_DATA_DATE") or _data_date()
+    return body
+
+
+def _data_date():
+    """Date of the newest data file (so the same data gives the same bundle date)."""
+    newest = 0.0
+    for fname in FILES:
+        path = os.path.join(PROJECT_DATA, fname)
+        if os.path.exists(path):
+            newest = max(newest, os.path.getmtime(path))
+    return datetime.date.fromtimestamp(newest or 0).isoformat()
+
+
+def load_bundle(data_dir):
+    """Read, validate and bundle a data folder; raises DataProblems listing every error."""
+    from .validate import validate_raw
+
+    raw, problems = read_folder(data_dir)
+    if not problems:
+        problems = [p for p in validate_raw(raw, data_dir) if not p.startswith("warning")]
+    if problems:
+        raise DataProblems(problems)
+    return bundle_from_raw(raw)
+
+
+def load_project_bundle(data_dir=None):
+    """The validated bundle of the project's own data/ (or another folder)."""
+    return load_bundle(data_dir or PROJECT_DATA)

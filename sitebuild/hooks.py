@@ -1,0 +1,150 @@
+"""mkdocs hooks: validate and bundle the data, generate the reference pages, stage the runtime.
+
+Wired in ``mkdocs.yml`` (``hooks: [sitebuild/hooks.py]``). What happens on a build:
+
+1. ``on_config``: the YAML dataset is read strictly, validated (every problem listed, the build
+   stops on any) and bundled with its content hash as the version.
+2. ``on_files``: generated reference pages and ``assets/data/dataset.json`` join the site.
+3. ``on_page_markdown``: ``<!-- cw:NAME -->`` markers in hand-written pages are replaced; an
+   unknown marker fails the build.
+4. ``on_post_build``: the five Pyodide runtime files are copied from ``node_modules/pyodide``
+   and a pure-Python wheel of calc (with the same dataset inside) is built with
+   ``pip wheel --no-deps``; ``assets/runtime.json`` tells the page where they are.
+"""
+
+import datetime
+import json
+import os
+import re
+import shutil
+import subprocess
+import sys
+import tempfile
+
+from mkdocs.exceptions import PluginError
+from mkdocs.structure.files import File
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+ROOT = os.path.dirname(HERE)
+if ROOT not in sys.path:  # hooks are loaded by path; make the project packages importable
+    sys.path.insert(0, ROOT)
+
+from sitebuild.dataset import DataProblems, load_project_bundle  # noqa: E402
+
+RUNTIME_FILES = ("pyodide.mjs", "pyodide.asm.mjs", "pyodide.asm.wasm", "python_stdlib.zip", "pyodide-lock.json")
+RUNTIME_SRC = os.path.join(ROOT, "node_modules", "pyodide")
+MARKER_RE = re.compile(r"<!--\s*cw:([a-z0-9-]+)\s*-->")
+
+_state = {}
+
+
+def _build_id():
+    return os.environ.get("COUPLEWISE_BUILD") or datetime.datetime.now(datetime.timezone.utc).strftime("%Y-%m-%dT%H:%MZ")
+
+
+def on_config(config, **kwargs):
+    data_dir = os.environ.get("COUPLEWISE_DATA_DIR") or None
+    try:
+        bundle = load_project_bundle(data_dir)
+    except DataProblems as exc:
+        raise PluginError("the dataset has problems; the site was not built:\n" + "\n".join(exc.problems)) from None
+    _state["bundle"] = bundle
+    _state["build"] = _build_id()
+    pkg = os.path.join(RUNTIME_SRC, "package.json")
+    if not os.path.exists(pkg):
+        raise PluginError("the Pyodide runtime is missing from node_modules/pyodide: run 'make setup' (npm ci)")
+    with open(pkg, encoding="utf-8") as fh:
+        _state["pyodide_version"] = json.load(fh)["version"]
+    config.extra["data_version"] = bundle["version"]
+    config.extra["data_date"] = bundle["date"]
+    config.extra["build"] = _state["build"]
+    config.extra["pyodide_version"] = _state["pyodide_version"]
+    return config
+
+
+def on_files(files, config, **kwargs):
+    bundle = _state["bundle"]
+    from sitebuild.pages import generate_pages
+
+    for path, text in generate_pages(bundle).items():
+        if files.get_file_from_path(path) is not None:
+            raise PluginError(f"generated page {path} would overwrite a hand-written page")
+        files.append(File.generated(config, path, content=text))
+    data = json.dumps(bundle, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
+    files.append(File.generated(config, "assets/data/dataset.json", content=data))
+    return files
+
+
+def _markers():
+    bundle = _state["bundle"]
+    return {
+        "data-version": f"`{bundle['version']}` ({bundle['date']})",
+        "build": _state["build"],
+        "pyodide-version": _state["pyodide_version"],
+        "count-half-reactions": str(len(bundle["half_reactions"])),
+        "count-materials": str(len(bundle["materials"])),
+        "count-electrodes": str(len(bundle["reference_electrodes"])),
+        "count-environments": str(len(bundle["environments"])),
+    }
+
+
+def on_page_markdown(markdown, page, config, files, **kwargs):
+    known = _markers()
+
+    def sub(m):
+        name = m.group(1)
+        if name not in known:
+            raise PluginError(f"{page.file.src_path}: unknown marker <!-- cw:{name} -->; known: {', '.join(sorted(known))}")
+        return known[name]
+
+    return MARKER_RE.sub(sub, markdown)
+
+
+def build_wheel(bundle, out_dir):
+    """Build the pure-Python calc wheel (dataset inside) into ``out_dir``; returns its file name."""
+    with tempfile.TemporaryDirectory() as tmp:
+        shutil.copytree(os.path.join(ROOT, "calc"), os.path.join(tmp, "calc"),
+                        ignore=shutil.ignore_patterns("__pycache__", "*.pyc", "dataset.json"))
+        with open(os.path.join(tmp, "calc", "dataset.json"), "w", encoding="utf-8") as fh:
+            json.dump(bundle, fh, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
+        with open(os.path.join(tmp, "pyproject.toml"), "w", encoding="utf-8") as fh:
+            fh.write(
+                '[build-system]\nrequires = ["setuptools>=65"]\nbuild-backend = "setuptools.build_meta"\n'
+                '[project]\nname = "couplewise-calc"\nversion = "0.1.0"\nrequires-python = ">=3.11"\n'
+                '[tool.setuptools]\npackages = ["calc"]\n'
+                '[tool.setuptools.package-data]\ncalc = ["dataset.json"]\n')
+        os.makedirs(out_dir, exist_ok=True)
+        proc = subprocess.run(
+            [sys.executable, "-m", "pip", "wheel", "--no-deps", "--no-build-isolation", "--quiet",
+             "--disable-pip-version-check", "-w", out_dir, tmp],
+            capture_output=True, text=True)
+        if proc.returncode != 0:
+            raise PluginError("building the calc wheel failed:\n" + proc.stderr[-2000:])
+    wheels = [f for f in os.listdir(out_dir) if f.endswith(".whl")]
+    if len(wheels) != 1:
+        raise PluginError(f"expected one calc wheel in {out_dir}, found {wheels}")
+    return wheels[0]
+
+
+def on_post_build(config, **kwargs):
+    site = config.site_dir
+    bundle = _state["bundle"]
+    rt_dir = os.path.join(site, "pyodide")
+    os.makedirs(rt_dir, exist_ok=True)
+    for name in RUNTIME_FILES:
+        src = os.path.join(RUNTIME_SRC, name)
+        if not os.path.exists(src):
+            raise PluginError(f"runtime file {name} is missing from node_modules/pyodide: run 'make setup'")
+        shutil.copy2(src, os.path.join(rt_dir, name))
+    wheel_dir = os.path.join(site, "wheels", bundle["version"])
+    wheel = build_wheel(bundle, wheel_dir)
+    runtime = {
+        "pyodide_version": _state["pyodide_version"],
+        "indexURL": "pyodide/",
+        "wheel": f"wheels/{bundle['version']}/{wheel}",
+        "data_version": bundle["version"],
+        "data_date": bundle["date"],
+        "build": _state["build"],
+    }
+    with open(os.path.join(site, "assets", "runtime.json"), "w", encoding="utf-8") as fh:
+        json.dump(runtime, fh, indent=1)
