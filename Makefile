@@ -24,7 +24,7 @@ node_modules/.installed: package.json package-lock.json
 # Build into a temporary folder, then swap: a failed build leaves the previous site intact.
 site: setup
 	rm -rf site.tmp
-	$(VENV)/bin/mkdocs build --strict --quiet -d site.tmp
+	$(VENV)/bin/mkdocs build --strict -d site.tmp
 	rm -rf site.old && { [ ! -d site ] || mv site site.old; } && mv site.tmp site && rm -rf site.old
 
 serve: site

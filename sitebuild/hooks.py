@@ -70,6 +70,9 @@ def on_files(files, config, **kwargs):
         if files.get_file_from_path(path) is not None:
             raise PluginError(f"generated page {path} would overwrite a hand-written page")
         files.append(File.generated(config, path, content=text))
+    from sitebuild.charts import galvanic_series_svg
+
+    files.append(File.generated(config, "reference/galvanic-series.svg", content=galvanic_series_svg(bundle)))
     data = json.dumps(bundle, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
     files.append(File.generated(config, "assets/data/dataset.json", content=data))
     return files
@@ -126,6 +129,31 @@ def build_wheel(bundle, out_dir):
     return wheels[0]
 
 
+def stage_pyc_stdlib(rt_dir):
+    """Copy the standard library precompiled to bytecode (made once per runtime version under
+    Node.js by build/make_pyc_stdlib.mjs, cached in node_modules/.cache) into the site.
+
+    Returns its file name, or None when Node.js is not available (the page then starts with the
+    stock source-only standard library: slower, same answers).
+    """
+    cache_dir = os.path.join(ROOT, "node_modules", ".cache", "couplewise")
+    cached = os.path.join(cache_dir, f"python_stdlib_pyc-{_state['pyodide_version']}.zip")
+    if not os.path.exists(cached):
+        node = shutil.which("node")
+        if not node:
+            return None
+        os.makedirs(cache_dir, exist_ok=True)
+        tmp = cached + ".tmp"
+        proc = subprocess.run([node, os.path.join(ROOT, "build", "make_pyc_stdlib.mjs"), RUNTIME_SRC, tmp],
+                              capture_output=True, text=True)
+        if proc.returncode != 0:
+            raise PluginError("precompiling the standard library failed:\n" + proc.stderr[-2000:])
+        os.replace(tmp, cached)
+    name = "python_stdlib_pyc.zip"
+    shutil.copy2(cached, os.path.join(rt_dir, name))
+    return name
+
+
 def on_post_build(config, **kwargs):
     site = config.site_dir
     bundle = _state["bundle"]
@@ -136,11 +164,13 @@ def on_post_build(config, **kwargs):
         if not os.path.exists(src):
             raise PluginError(f"runtime file {name} is missing from node_modules/pyodide: run 'make setup'")
         shutil.copy2(src, os.path.join(rt_dir, name))
+    stdlib_pyc = stage_pyc_stdlib(rt_dir)
     wheel_dir = os.path.join(site, "wheels", bundle["version"])
     wheel = build_wheel(bundle, wheel_dir)
     runtime = {
         "pyodide_version": _state["pyodide_version"],
         "indexURL": "pyodide/",
+        "stdLibURL": f"pyodide/{stdlib_pyc}" if stdlib_pyc else None,
         "wheel": f"wheels/{bundle['version']}/{wheel}",
         "data_version": bundle["version"],
         "data_date": bundle["date"],
@@ -148,3 +178,6 @@ def on_post_build(config, **kwargs):
     }
     with open(os.path.join(site, "assets", "runtime.json"), "w", encoding="utf-8") as fh:
         json.dump(runtime, fh, indent=1)
+    from sitebuild.offline import write_service_worker
+
+    write_service_worker(site)  # last: it hashes every other file of the site

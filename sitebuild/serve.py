@@ -54,11 +54,21 @@ class SiteHandler(http.server.SimpleHTTPRequestHandler):
             super().log_message(fmt, *args)
 
 
+class _Server(http.server.ThreadingHTTPServer):
+    daemon_threads = True
+
+    def handle_error(self, request, client_address):
+        exc = sys.exc_info()[1]
+        if isinstance(exc, (BrokenPipeError, ConnectionResetError)):
+            return  # the browser closed a connection early (navigation, offline tests)
+        super().handle_error(request, client_address)
+
+
 def make_server(directory, host="127.0.0.1", port=8000, prefix="/", quiet=False):
     """A ThreadingHTTPServer serving ``directory`` under ``prefix``."""
     prefix = "/" + prefix.strip("/") + "/" if prefix.strip("/") else "/"
     handler = type("Handler", (SiteHandler,), {"prefix": prefix, "quiet": quiet})
-    return http.server.ThreadingHTTPServer((host, port), functools.partial(handler, directory=directory))
+    return _Server((host, port), functools.partial(handler, directory=directory))
 
 
 def main(argv=None):

@@ -22,7 +22,7 @@ CHROMIUM_ARGS = ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-
 def build_site(dest, env_extra=None):
     """mkdocs build --strict into dest; returns the completed process."""
     env = dict(os.environ, **(env_extra or {}))
-    return subprocess.run([sys.executable, "-m", "mkdocs", "build", "--strict", "--quiet", "-d", dest],
+    return subprocess.run([sys.executable, "-m", "mkdocs", "build", "--strict", "-d", dest],
                           cwd=ROOT, capture_output=True, text=True, env=env)
 
 

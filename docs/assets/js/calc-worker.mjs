@@ -12,7 +12,17 @@ async function boot() {
   const indexURL = new URL(info.indexURL, siteRoot).href;
   status("loading", "Python runtime");
   const { loadPyodide } = await import(new URL("pyodide.mjs", indexURL).href);
-  const pyodide = await loadPyodide({ indexURL, stdout: () => {}, stderr: () => {} });
+  const quiet = { indexURL, stdout: () => {}, stderr: () => {} };
+  let pyodide;
+  if (info.stdLibURL) {
+    // Standard library precompiled to bytecode at build time: much faster start.
+    try {
+      pyodide = await loadPyodide({ ...quiet, stdLibURL: new URL(info.stdLibURL, siteRoot).href });
+    } catch (err) {
+      status("loading", "Python runtime (plain standard library)");
+    }
+  }
+  if (!pyodide) pyodide = await loadPyodide(quiet);
   status("loading", "calculation package");
   await pyodide.loadPackage(new URL(info.wheel, siteRoot).href, { messageCallback: () => {} });
   const api = pyodide.pyimport("calc.api");

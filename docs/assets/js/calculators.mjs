@@ -2,6 +2,7 @@
 // recalculates on change (no submit button), shows the result with its derivation, warnings
 // and sources, and on bad input shows a message next to the field and greys the last result.
 import { calculate, dataset, h, onRuntime, siteRoot } from "./couplewise.mjs";
+import { lineChart } from "./charts.mjs";
 
 const SPECIES_RE = /^(?:(\d+(?:\.\d+)?) )?(.+)\((aq|s|l|g)\)$/;
 
@@ -18,8 +19,17 @@ export function sourceLink(id) {
 export function fmt(x, digits = 4) {
   if (typeof x !== "number" || !Number.isFinite(x)) return String(x);
   const a = Math.abs(x);
-  if (a !== 0 && (a < 1e-3 || a >= 1e6)) return x.toExponential(3).replace("e", "×10^");
+  if (a !== 0 && (a < 1e-3 || a >= 1e6)) {
+    const [m, e] = x.toExponential(3).split("e");
+    return m + " × 10^" + String(Number(e)).replace("-", "−");
+  }
   return x.toFixed(digits);
+}
+
+// Replace an element's children, skipping empty parts (null, undefined, false).
+export function fill(el, ...children) {
+  el.replaceChildren(...children.flat().filter((c) => c !== null && c !== undefined && c !== false));
+  return el;
 }
 
 export function signed(x, digits = 4) {
@@ -155,7 +165,7 @@ export function runner(ui, name, onResult, fieldFor) {
       if (f) f.setError(out.error.message);
       else ui.formMsg.textContent = out.error.message;
       setStale(true);
-      if (!hasResult) ui.result.replaceChildren(h("p", { class: "cw-pending", text: "No result yet: correct the input above." }));
+      if (!hasResult) fill(ui.result, h("p", { class: "cw-pending", text: "No result yet: correct the input above." }));
     }
   }
   return {
@@ -268,7 +278,7 @@ async function coupleCalc(root) {
         h("tr", {}, h("td", { text: "ΔG (kJ/mol of reaction)" }), h("td", { text: signed(r.delta_G_kJ_per_mol, 2) }), h("td", { text: r.standard_delta_G_kJ_per_mol !== undefined ? signed(r.standard_delta_G_kJ_per_mol, 2) : "" })),
         h("tr", {}, h("td", { text: "Electrons transferred n" }), h("td", { text: String(r.n_electrons) }), h("td", { text: String(r.n_electrons) })),
         h("tr", {}, h("td", { text: "Equilibrium constant K (from E° at this temperature)" }), h("td", { colspan: "2", text: r.equilibrium_constant !== null && r.equilibrium_constant !== undefined ? fmt(r.equilibrium_constant) + (r.log10_K !== undefined ? "  (log₁₀ K = " + fmt(r.log10_K, 2) + ")" : "") : (r.log10_K !== undefined ? "log₁₀ K = " + fmt(r.log10_K, 2) : "n/a") }))));
-    ui.result.replaceChildren(
+    fill(ui.result, 
       h("p", { class: "cw-big" }, h("span", { class: "cw-big-label", text: "E cell " }), h("span", { class: "cw-big-value", "data-cw-value": "cell_potential_V", text: signed(r.cell_potential_V) }), h("span", { class: "cw-unit", text: " V" })),
       h("p", { class: "cw-direction" }, h("strong", { text: an }), " is oxidised (the anode); ", h("strong", { text: ca }), " is reduced (the cathode)."),
       h("p", { class: "cw-reaction" }, "Overall: ", h("span", { class: "cw-formula", text: r.overall_reaction })),
@@ -286,8 +296,303 @@ async function coupleCalc(root) {
   ui.formBox.addEventListener("input", (e) => { if (e.target.tagName === "INPUT") changed(false); });
   rebuildConditions();
   const { req, bad } = collect();
-  ui.result.replaceChildren(h("p", { class: "cw-pending", text: "Computing…" }));
+  fill(ui.result, h("p", { class: "cw-pending", text: "Computing…" }));
   run.now(req, bad);
 }
 
-export const CALCULATORS = { couple: coupleCalc };
+// ---------------------------------------------------------------------------------------
+// Electrode: one half-reaction at a temperature, activities (or molalities through a model).
+
+// Demo scenario of our own: a zinc anode block in a warm brackish cooling pond at 30 °C.
+const ELECTRODE_DEFAULTS = { id: "Zn2+/Zn", t: "30", pH: "7.8", act: { "Zn2+": "2e-6" } };
+const MODELS = [
+  { value: "ideal", label: "ideal (γ = 1)" },
+  { value: "limiting", label: "Debye–Hückel limiting law" },
+  { value: "extended", label: "extended Debye–Hückel (Kielland sizes)" },
+  { value: "davies", label: "Davies (0.3 I term)" },
+];
+
+function speciesOf(reactions) {
+  const seen = new Map();
+  let needsPH = false;
+  for (const r of reactions) {
+    if (!r) continue;
+    for (const txt of [...r.oxidised, ...r.reduced]) {
+      const sp = parseSpecies(txt);
+      if (!sp) continue;
+      if (sp.name === "H+" || sp.name === "OH-") { needsPH = true; continue; }
+      if (sp.phase === "aq" || sp.phase === "g") seen.set(sp.name, sp.phase);
+    }
+  }
+  return { seen, needsPH };
+}
+
+async function electrodeCalc(root) {
+  const ui = frame(root, "Electrode potential");
+  const ds = await dataset();
+  const reactions = [...ds.half_reactions].sort((x, y) => x.E0_V - y.E0_V);
+  const byId = new Map(reactions.map((r) => [r.id, r]));
+  const params = urlState();
+  const opts = reactions.map((r) => ({ value: r.id, label: r.id + "  (E° " + signed(r.E0_V, 3) + " V)" }));
+  const idField = field("cw-id", "Half-reaction", select(opts, byId.has(params.get("id")) ? params.get("id") : ELECTRODE_DEFAULTS.id));
+  const tField = field("cw-t", "Temperature (°C)", numberInput(params.get("t") ?? ELECTRODE_DEFAULTS.t), "0 to 100 °C");
+  const phField = field("cw-ph", "pH", numberInput(params.get("pH") ?? ELECTRODE_DEFAULTS.pH), "0 to 14");
+  const modeField = field("cw-mode", "Dissolved species given as", select([{ value: "activity", label: "activities" }, { value: "molality", label: "molalities (mol/kg) through an activity model" }], params.get("mode") === "molality" ? "molality" : "activity"));
+  const modelField = field("cw-model", "Activity model", select(MODELS, MODELS.some((m) => m.value === params.get("model")) ? params.get("model") : "davies"));
+  const envOpts = [{ value: "", label: "ionic strength typed below" }, ...ds.environments.filter((e) => e.ionic_strength_mol_per_kg).map((e) => ({ value: e.id, label: e.name + " (I ≈ " + e.ionic_strength_mol_per_kg + " mol/kg)" }))];
+  const envField = field("cw-env", "Ionic strength from", select(envOpts, params.get("env") || ""));
+  const iField = field("cw-i", "Ionic strength I (mol/kg)", numberInput(params.get("I") ?? "0.01"), "0 or more; each model has its own valid range");
+  const condBox = h("fieldset", { class: "cw-conditions" });
+  const modelRow = h("div", { class: "cw-row" }, modelField.el, envField.el, iField.el);
+  ui.formBox.append(h("div", { class: "cw-row" }, idField.el, tField.el, phField.el), h("div", { class: "cw-row" }, modeField.el), modelRow, condBox);
+  const charts = h("div", { class: "cw-charts" });
+  let speciesFields = new Map();
+
+  function rebuild() {
+    const { seen, needsPH } = speciesOf([byId.get(idField.control.value)]);
+    const old = speciesFields;
+    speciesFields = new Map();
+    const mol = modeField.control.value === "molality";
+    condBox.replaceChildren(h("legend", { text: seen.size ? (mol ? "Molalities and pressures" : "Activities and pressures") : "No dissolved or gaseous species other than H+/OH-" }));
+    for (const [name, phase] of seen) {
+      const prev = old.get(name);
+      const key = (phase === "g" ? "p." : mol ? "m." : "a.") + name;
+      const val = prev && prev.mol === mol ? prev.control.value : params.get(key) ?? ELECTRODE_DEFAULTS.act[name] ?? "1";
+      const label = phase === "g" ? "Partial pressure of " + name + " (atm)" : (mol ? "Molality of " + name + " (mol/kg)" : "Activity of " + name);
+      const f = field("cw-sp-" + name.replace(/[^A-Za-z0-9]/g, "_"), label, numberInput(val), "greater than 0");
+      f.phase = phase; f.mol = mol;
+      speciesFields.set(name, f);
+      condBox.append(f.el);
+    }
+    phField.el.hidden = !needsPH;
+    modelRow.hidden = !mol;
+    iField.el.hidden = !mol || envField.control.value !== "";
+  }
+
+  function collect() {
+    let bad = false;
+    const p = new URLSearchParams();
+    const req = { id: idField.control.value };
+    p.set("id", req.id);
+    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
+    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
+    p.set("t", tField.control.value.trim());
+    if (!phField.el.hidden) {
+      const ph = readNumber(phField.control, { min: 0, max: 14, allowed: "a pH from 0 to 14" });
+      phField.setError(ph.error); if (ph.error) bad = true; else req.pH = ph.value;
+      p.set("pH", phField.control.value.trim());
+    }
+    const mol = modeField.control.value === "molality";
+    if (mol) {
+      p.set("mode", "molality");
+      req.model = modelField.control.value; p.set("model", req.model);
+      if (envField.control.value) { req.env = envField.control.value; p.set("env", req.env); }
+      else {
+        const I = readNumber(iField.control, { min: 0, max: 10, allowed: "an ionic strength from 0 to 10 mol/kg" });
+        iField.setError(I.error); if (I.error) bad = true; else req.ionic_strength = I.value;
+        p.set("I", iField.control.value.trim());
+      }
+    }
+    const acts = {}, mols = {}, press = {};
+    for (const [name, f] of speciesFields) {
+      const v = readNumber(f.control, { positive: true, max: 1000, allowed: f.phase === "g" ? "a pressure above 0 atm" : "a value above 0" });
+      f.setError(v.error);
+      if (v.error) bad = true;
+      else if (f.phase === "g") press[name] = v.value; else if (mol) mols[name] = v.value; else acts[name] = v.value;
+      p.set((f.phase === "g" ? "p." : mol ? "m." : "a.") + name, f.control.value.trim());
+    }
+    if (Object.keys(acts).length) req.activities = acts;
+    if (Object.keys(mols).length) req.molalities = mols;
+    if (Object.keys(press).length) req.pressures = press;
+    writeUrl(p);
+    return { req, bad };
+  }
+
+  function fieldFor(name) {
+    if (!name) return null;
+    if (name.startsWith("temp")) return tField;
+    if (name === "pH") return phField;
+    if (name === "id") return idField;
+    if (name.startsWith("ionic")) return iField;
+    if (name === "model") return modelField;
+    if (name === "env") return envField;
+    for (const [sp, f] of speciesFields) if (name.includes(sp)) return f;
+    return null;
+  }
+
+  let chartTicket = 0;
+  async function drawCharts(req, r) {
+    const my = ++chartTicket;
+    const temps = [0, 10, 20, 25, 30, 40, 50, 60, 70, 80, 90, 100];
+    const tPts = [];
+    for (const t of temps) {
+      const out = await calculate("electrode", { ...req, temp_C: t });
+      if (my !== chartTicket) return;
+      if (out.ok) tPts.push([t, out.result.potential_V]);
+    }
+    const ion = [...speciesFields.entries()].find(([, f]) => f.phase === "aq");
+    const nodes = [lineChart({ title: "Potential against temperature", xLabel: "temperature (°C)", yLabel: "E (V vs SHE)", series: [{ name: r.id, points: tPts }], marker: [req.temp_C, r.potential_V] })];
+    if (ion && req.activities) {
+      const [name] = ion;
+      const aPts = [];
+      for (let lg = -8; lg <= 0; lg += 1) {
+        const out = await calculate("electrode", { ...req, activities: { ...req.activities, [name]: Math.pow(10, lg) } });
+        if (my !== chartTicket) return;
+        if (out.ok) aPts.push([lg, out.result.potential_V]);
+      }
+      nodes.push(lineChart({ title: "Potential against log activity of " + name, xLabel: "log₁₀ a(" + name + ")", yLabel: "E (V vs SHE)", series: [{ name, points: aPts }], marker: [Math.log10(req.activities[name]), r.potential_V] }));
+    }
+    charts.replaceChildren(...nodes);
+  }
+
+  let lastReq = null;
+  function render(r) {
+    fill(ui.result, 
+      h("p", { class: "cw-big" }, h("span", { class: "cw-big-label", text: "E " }), h("span", { class: "cw-big-value", "data-cw-value": "potential_V", text: signed(r.potential_V) }), h("span", { class: "cw-unit", text: " V vs SHE" })),
+      h("p", { class: "cw-direction", text: "E° at " + fmt(r.temp_C, 1) + " °C: " + signed(r.standard_potential_V) + " V vs SHE; your conditions shift it by " + signed(r.potential_V - r.standard_potential_V) + " V." }),
+      r.hypothetical ? h("p", { class: "cw-warning", text: "Hypothetical couple: its ion is not stable in water; the value is a thermodynamic estimate." }) : null,
+      warningsList(r.warnings), charts, derivation(r.steps), sourcesLine(r.sources, r.data_version));
+    if (lastReq) drawCharts(lastReq, r);
+  }
+  const run = runner(ui, "electrode", render, fieldFor);
+  function changed(rb) { if (rb) rebuild(); const { req, bad } = collect(); lastReq = bad ? null : req; run.schedule(req, bad); }
+  for (const f of [idField, modeField, envField, modelField]) f.control.addEventListener("change", () => changed(true));
+  ui.formBox.addEventListener("input", (e) => { if (e.target.tagName === "INPUT") changed(false); });
+  rebuild();
+  const first = collect();
+  lastReq = first.bad ? null : first.req;
+  run.now(first.req, first.bad);
+}
+
+// ---------------------------------------------------------------------------------------
+// Reference-electrode conversion.
+
+// Demo scenario of our own: a diver's reading on a jetty pile taken with a seawater
+// silver/silver-chloride cell, to be logged against a copper/copper-sulfate survey.
+const CONVERT_DEFAULTS = { v: "-0.930", from: "Ag/AgCl seawater", to: "CSE", t: "18", pH: "7" };
+
+async function convertCalc(root) {
+  const ui = frame(root, "Reference conversion");
+  const ds = await dataset();
+  const params = urlState();
+  const refs = [...ds.reference_electrodes.map((r) => ({ value: r.id, label: r.id + " (" + signed(r.E_V_SHE, 4) + " V vs SHE at 25 °C)" })), { value: "RHE", label: "RHE (computed from pH)" }];
+  const ids = new Set(refs.map((r) => r.value));
+  const vField = field("cw-v", "Reading (V)", numberInput(params.get("v") ?? CONVERT_DEFAULTS.v), "the potential as read on the meter, in volts");
+  const fromField = field("cw-from", "Measured against", select(refs, ids.has(params.get("from")) ? params.get("from") : CONVERT_DEFAULTS.from));
+  const toField = field("cw-to", "Express against", select(refs, ids.has(params.get("to")) ? params.get("to") : CONVERT_DEFAULTS.to));
+  const tField = field("cw-t", "Electrode temperature (°C)", numberInput(params.get("t") ?? CONVERT_DEFAULTS.t), "0 to 100 °C; each electrode has its own valid range");
+  const phField = field("cw-ph", "pH (for RHE)", numberInput(params.get("pH") ?? CONVERT_DEFAULTS.pH), "0 to 14");
+  ui.formBox.append(h("div", { class: "cw-row" }, vField.el, fromField.el, toField.el), h("div", { class: "cw-row" }, tField.el, phField.el));
+  function collect() {
+    let bad = false;
+    const p = new URLSearchParams();
+    const req = { from: fromField.control.value, to: toField.control.value };
+    const v = readNumber(vField.control, { min: -5, max: 5, allowed: "a reading from −5 to +5 V" });
+    vField.setError(v.error); if (v.error) bad = true; else req.value_V = v.value;
+    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
+    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
+    const rhe = req.from === "RHE" || req.to === "RHE";
+    phField.el.hidden = !rhe;
+    if (rhe) {
+      const ph = readNumber(phField.control, { min: 0, max: 14, allowed: "a pH from 0 to 14" });
+      phField.setError(ph.error); if (ph.error) bad = true; else req.pH = ph.value;
+      p.set("pH", phField.control.value.trim());
+    }
+    p.set("v", vField.control.value.trim()); p.set("from", req.from); p.set("to", req.to); p.set("t", tField.control.value.trim());
+    writeUrl(p);
+    return { req, bad };
+  }
+  function fieldFor(name) {
+    if (!name) return null;
+    if (name.startsWith("value")) return vField;
+    if (name === "from") return fromField;
+    if (name === "to") return toField;
+    if (name.startsWith("temp")) return tField;
+    if (name === "pH") return phField;
+    return null;
+  }
+  function render(r) {
+    fill(ui.result, 
+      h("p", { class: "cw-big" }, h("span", { class: "cw-big-value", "data-cw-value": "value_V", text: signed(r.value_V) }), h("span", { class: "cw-unit", text: " V vs " + r.to })),
+      h("p", { class: "cw-direction", text: signed(r.input_V ?? Number(vField.control.value)) + " V vs " + r.from + " at " + fmt(r.temp_C, 1) + " °C is " + signed(r.value_V) + " V vs " + r.to + "." }),
+      warningsList(r.warnings), derivation(r.steps), sourcesLine(r.sources, r.data_version));
+  }
+  const run = runner(ui, "convert", render, fieldFor);
+  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
+  ui.formBox.addEventListener("input", changed);
+  ui.formBox.addEventListener("change", changed);
+  const first = collect();
+  run.now(first.req, first.bad);
+}
+
+// ---------------------------------------------------------------------------------------
+// Activity coefficient of one ion.
+
+// Demo scenario of our own: zinc ions in a moderately hard process water, I = 0.02 mol/kg, 40 °C.
+const ACTIVITY_DEFAULTS = { sp: "Zn2+", I: "0.02", model: "extended", t: "40" };
+
+async function activityCalc(root) {
+  const ui = frame(root, "Activity coefficient");
+  const ds = await dataset();
+  const params = urlState();
+  const ions = ds.ions.map((i) => ({ value: i.species, label: i.species + " (z = " + i.charge + ", å = " + i.size_angstrom + " Å)" }));
+  const known = new Set(ions.map((i) => i.value));
+  const spField = field("cw-sp", "Ion", select(ions, known.has(params.get("sp")) ? params.get("sp") : ACTIVITY_DEFAULTS.sp));
+  const iField = field("cw-i", "Ionic strength I (mol/kg)", numberInput(params.get("I") ?? ACTIVITY_DEFAULTS.I), "0 or more; each model has its own valid range");
+  const modelField = field("cw-model", "Model", select(MODELS, MODELS.some((m) => m.value === params.get("model")) ? params.get("model") : ACTIVITY_DEFAULTS.model));
+  const tField = field("cw-t", "Temperature (°C)", numberInput(params.get("t") ?? ACTIVITY_DEFAULTS.t), "0 to 100 °C");
+  ui.formBox.append(h("div", { class: "cw-row" }, spField.el, iField.el), h("div", { class: "cw-row" }, modelField.el, tField.el));
+  const charts = h("div", { class: "cw-charts" });
+  function collect() {
+    let bad = false;
+    const p = new URLSearchParams();
+    const req = { species: spField.control.value, model: modelField.control.value };
+    const I = readNumber(iField.control, { min: 0, max: 10, allowed: "an ionic strength from 0 to 10 mol/kg" });
+    iField.setError(I.error); if (I.error) bad = true; else req.ionic_strength = I.value;
+    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
+    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
+    p.set("sp", req.species); p.set("I", iField.control.value.trim()); p.set("model", req.model); p.set("t", tField.control.value.trim());
+    writeUrl(p);
+    return { req, bad };
+  }
+  function fieldFor(name) {
+    if (!name) return null;
+    if (name.startsWith("ionic")) return iField;
+    if (name.startsWith("temp")) return tField;
+    if (name === "model") return modelField;
+    if (name === "species") return spField;
+    return null;
+  }
+  let lastReq = null, ticket = 0;
+  async function drawChart(req, r) {
+    const my = ++ticket;
+    const series = [];
+    for (const m of MODELS) {
+      const pts = [];
+      for (let k = 0; k <= 20; k++) {
+        const I = Math.pow(10, -4 + (k * 4.3) / 20);
+        const out = await calculate("activity", { ...req, model: m.value, ionic_strength: I });
+        if (my !== ticket) return;
+        if (out.ok) pts.push([Math.log10(I), out.result.gamma]);
+      }
+      series.push({ name: m.value, points: pts });
+    }
+    charts.replaceChildren(lineChart({ title: "γ against ionic strength", xLabel: "log₁₀ I (mol/kg)", yLabel: "γ(" + req.species + ")", series, marker: req.ionic_strength > 0 ? [Math.log10(req.ionic_strength), r.gamma] : null }));
+  }
+  function render(r) {
+    fill(ui.result, 
+      h("p", { class: "cw-big" }, h("span", { class: "cw-big-label", text: "γ " }), h("span", { class: "cw-big-value", "data-cw-value": "gamma", text: fmt(r.gamma, 4) })),
+      h("p", { class: "cw-direction", text: "Debye–Hückel A = " + fmt(r.A, 4) + " kg^½ mol^−½, B = " + fmt(r.B, 4) + " kg^½ mol^−½ Å^−1 at " + fmt(r.temp_C, 1) + " °C." }),
+      warningsList(r.warnings), charts, derivation(r.steps), sourcesLine(r.sources, r.data_version));
+    if (lastReq) drawChart(lastReq, r);
+  }
+  const run = runner(ui, "activity", render, fieldFor);
+  function changed() { const { req, bad } = collect(); lastReq = bad ? null : req; run.schedule(req, bad); }
+  ui.formBox.addEventListener("input", changed);
+  ui.formBox.addEventListener("change", changed);
+  const first = collect();
+  lastReq = first.bad ? null : first.req;
+  run.now(first.req, first.bad);
+}
+
+export const CALCULATORS = { couple: coupleCalc, electrode: electrodeCalc, convert: convertCalc, activity: activityCalc };

@@ -117,6 +117,47 @@ function initPage() {
   }
 }
 
+// Offline: a service worker precaches the whole site. A new version found on a later online
+// visit waits until the user accepts it in a non-blocking notice; then every page reloads on it.
+let swRegistered = false;
+function offerUpdate(reg) {
+  if (document.querySelector(".cw-update")) return;
+  const accept = h("button", { type: "button", class: "md-button md-button--primary", text: "Use the new version" });
+  const later = h("button", { type: "button", class: "md-button", text: "Later" });
+  const bar = h("div", { class: "cw-update", role: "status" },
+    h("span", { text: "A new version of Couplewise (data or calculations) is ready. " }), accept, later);
+  accept.addEventListener("click", () => {
+    accept.disabled = true;
+    if (reg.waiting) reg.waiting.postMessage({ type: "activate-new-version" });
+  });
+  later.addEventListener("click", () => bar.remove());
+  document.body.append(bar);
+}
+
+function registerServiceWorker() {
+  if (swRegistered || !servedOverHttp() || !("serviceWorker" in navigator)) return;
+  swRegistered = true;
+  let reloading = false;
+  const hadController = !!navigator.serviceWorker.controller;
+  navigator.serviceWorker.addEventListener("controllerchange", () => {
+    if (!hadController || reloading) return;
+    reloading = true;
+    location.reload();
+  });
+  navigator.serviceWorker.register(new URL("sw.js", siteRoot).href, { scope: siteRoot.pathname }).then((reg) => {
+    if (reg.waiting && navigator.serviceWorker.controller) offerUpdate(reg);
+    reg.addEventListener("updatefound", () => {
+      const nw = reg.installing;
+      if (!nw) return;
+      nw.addEventListener("statechange", () => {
+        if (nw.state === "installed" && navigator.serviceWorker.controller) offerUpdate(reg);
+      });
+    });
+  }).catch(() => { /* offline use is unavailable (e.g. private mode); the site still works online */ });
+}
+
+registerServiceWorker();
+
 if (window.document$ && typeof window.document$.subscribe === "function") {
   window.document$.subscribe(() => initPage());
 } else {

@@ -1,0 +1,415 @@
+"""Corrosion rate from a current density by Faraday's law, as ASTM G102 writes it.
+
+Method: ASTM G102-89 (reapproved 2015), *Standard Practice for Calculation of Corrosion Rates
+and Related Information from Electrochemical Measurements*:
+
+- penetration rate, Eq. (1):  CR = K1 · i · EW / ρ   [mm/y], K1 = 3.27e-3 mm·g/(µA·cm·y)
+- mass-loss rate,   Eq. (2):  MR = K2 · i · EW       [g/(m²·d)], K2 = 8.954e-3 g·cm²/(µA·m²·d)
+- equivalent weight of an alloy, Eqs. (4)-(6) and Table 1: EW = 1 / Σ (n_i · f_i / W_i), with f_i
+  the mass fraction, n_i the valence and W_i the atomic weight of element i; elements below
+  1 % by mass are left out, as in G102 Table 1.
+
+K1 and K2 are Faraday's law with unit conversions; :func:`k1_from_faraday` and
+:func:`k2_from_faraday` rebuild them from the CODATA 2018 Faraday constant as a check.
+"""
+
+import math
+from dataclasses import asdict, dataclass, field
+
+from . import constants
+from .dataset import current
+from .errors import DataError, InputError
+
+#: ASTM G102-89 (R2015) Eq. (1) constant for CR in mm/y with i in µA/cm², ρ in g/cm³ [mm·g/(µA·cm·y)]
+K1_MM = 3.27e-3
+#: ASTM G102-89 (R2015) Eq. (2) constant for MR in g/(m²·d) with i in µA/cm² [g·cm²/(µA·m²·d)]
+K2_G_M2_D = 8.954e-3
+#: elements below this share are left out of the equivalent weight (ASTM G102 Table 1 note) [wt %]
+MIN_WT_PCT = 1.0
+#: current densities above this are far beyond any oxygen-limited cathode in water: warn [µA/cm²]
+HIGH_CURRENT_UA_CM2 = 10000.0
+
+#: Standard atomic weights [g/mol]: IUPAC/CIAAW abridged values to five significant figures
+#: (T. Prohaska et al., "Standard atomic weights of the elements 2021 (IUPAC Technical Report)",
+#: Pure Appl. Chem. 94, 573 (2022), Table 2 abridged values) - from memory.
+ATOMIC_WEIGHTS = {
+    "Ag": 107.87, "Al": 26.982, "As": 74.922, "Au": 196.97, "Be": 9.0122, "Bi": 208.98,
+    "C": 12.011, "Cd": 112.41, "Co": 58.933, "Cr": 51.996, "Cu": 63.546, "Fe": 55.845,
+    "In": 114.82, "Mg": 24.305, "Mn": 54.938, "Mo": 95.95, "N": 14.007, "Nb": 92.906,
+    "Ni": 58.693, "P": 30.974, "Pb": 207.2, "Pd": 106.42, "Pt": 195.08, "Rh": 102.91,
+    "S": 32.06, "Sb": 121.76, "Si": 28.085, "Sn": 118.71, "Ta": 180.95, "Ti": 47.867,
+    "V": 50.942, "W": 183.84, "Zn": 65.38, "Zr": 91.224,
+}
+
+#: Valence n_i taken for each element when it dissolves [unitless]: the lowest common oxidation
+#: state in near-neutral aerated water, the convention of ASTM G102 Table 1 (Fe 2, Ni 2, Cr 3,
+#: Mo 3, Cu 2, Zn 2, Al 3) - from memory. Ti 4 and Si 4 (oxide products), Sn 2, Pb 2 stated by us.
+VALENCES = {
+    "Ag": 1, "Al": 3, "Be": 2, "Cd": 2, "Co": 2, "Cr": 3, "Cu": 2, "Fe": 2, "Mg": 2, "Mn": 2,
+    "Mo": 3, "Nb": 3, "Ni": 2, "Pb": 2, "Sb": 3, "Si": 4, "Sn": 2, "Ti": 4, "V": 3, "W": 4,
+    "Zn": 2, "Zr": 4,
+}
+
+#: material families that have no meaningful Faraday rate, with the reason shown to the user
+_NO_DISSOLUTION = {
+    "graphite": "graphite is not a metal: it does not dissolve anodically, it only serves as a cathode",
+    "carbon": "carbon is not a metal: it does not dissolve anodically, it only serves as a cathode",
+    "noble metal": "a noble metal does not dissolve anodically in these waters, it serves as a cathode",
+    "precious metal": "a noble metal does not dissolve anodically in these waters, it serves as a cathode",
+}
+_NOBLE_WORDS = ("platinum", "gold", "graphite", "rhodium")
+
+
+def _step(title, formula, substituted, result):
+    return {"title": title, "formula": formula, "substituted": substituted, "result": result}
+
+
+def k1_from_faraday(year_days=365.25):
+    """ASTM G102 K1 rebuilt from Faraday's law and unit conversions.
+
+    K1 = (1e-6 A/µA) · (s per year) · (10 mm/cm) / F.
+
+    Args:
+        year_days: length of the year used [d]
+
+    Returns:
+        K1 [mm·g/(µA·cm·y)]
+
+    References:
+        ASTM G102-89 (R2015) Eq. (1) and its Note on K1; F from CODATA 2018.
+
+    >>> round(k1_from_faraday(), 7)
+    0.0032707
+    """
+    return 1e-6 * year_days * 86400.0 * 10.0 / constants.FARADAY
+
+
+def k2_from_faraday():
+    """ASTM G102 K2 rebuilt from Faraday's law and unit conversions.
+
+    K2 = (1e-6 A/µA) · (86 400 s/d) · (1e4 cm²/m²) / F.
+
+    Returns:
+        K2 [g·cm²/(µA·m²·d)]
+
+    References:
+        ASTM G102-89 (R2015) Eq. (2); F from CODATA 2018.
+
+    >>> round(k2_from_faraday(), 7)
+    0.0089547
+    """
+    return 1e-6 * 86400.0 * 1e4 / constants.FARADAY
+
+
+@dataclass(frozen=True)
+class EquivalentWeight:
+    """Equivalent weight of an alloy by the G102 method, with the terms that made it."""
+
+    value_g: float
+    terms: tuple  # (element, wt %, valence, atomic weight, n·f/W)
+    ignored: tuple  # elements below MIN_WT_PCT
+    total_wt_pct: float
+    steps: tuple = field(default=())
+
+
+def _composition_numbers(composition_wt_pct, field_name):
+    """Mass shares as numbers; one element may be given as 'balance'."""
+    if not isinstance(composition_wt_pct, dict) or not composition_wt_pct:
+        raise InputError(field_name, composition_wt_pct, "a mapping element -> mass share in %, e.g. {'Fe': 98}")
+    numbers, balance = {}, None
+    for el, pct in composition_wt_pct.items():
+        if isinstance(pct, str) and pct.strip().lower() in ("bal", "balance", "rem", "remainder"):
+            if balance is not None:
+                raise InputError(f"{field_name}.{el}", pct, "at most one element given as 'balance'")
+            balance = el
+            continue
+        if isinstance(pct, bool) or not isinstance(pct, (int, float)) or not math.isfinite(pct) or not 0 <= pct <= 100:
+            raise InputError(f"{field_name}.{el}", pct, "a mass share from 0 to 100 %")
+        numbers[el] = float(pct)
+    if balance is not None:
+        rest = 100.0 - sum(numbers.values())
+        if rest < 0:
+            raise InputError(field_name, composition_wt_pct, "shares that leave room for the balance element")
+        numbers[balance] = rest
+    return numbers
+
+
+def equivalent_weight(composition_wt_pct, valences=None, min_wt_pct=MIN_WT_PCT):
+    """Equivalent weight of a metal or alloy from its composition (ASTM G102 method).
+
+    EW = 1 / Σ (n_i · f_i / W_i); elements below ``min_wt_pct`` are left out (not renormalised),
+    as in G102 Table 1. Valences are those given, else :data:`VALENCES`; a valence of 0 marks an
+    element that is not oxidised (graphitic carbon in cast iron, left out). Atomic weights from
+    :data:`ATOMIC_WEIGHTS`.
+
+    Args:
+        composition_wt_pct: element symbol -> mass share, one element may be 'balance' [wt %]
+        valences: element symbol -> valence n_i, overriding the defaults [unitless]
+        min_wt_pct: elements below this share are left out [wt %]
+
+    Returns:
+        an :class:`EquivalentWeight` (``value_g`` in [g per equivalent])
+
+    References:
+        ASTM G102-89 (R2015) §5 Eqs. (4)-(6) and Table 1 (equivalent weights of alloys).
+
+    >>> round(equivalent_weight({"Fe": 100}).value_g, 2)   # Fe -> Fe2+
+    27.92
+    >>> round(equivalent_weight({"Zn": 100}).value_g, 2)   # Zn -> Zn2+
+    32.69
+    >>> round(equivalent_weight({"Cr": 17, "Ni": 12, "Mo": 2.5, "Mn": 0.5, "Fe": "balance"}).value_g, 2)
+    25.62
+    """
+    comp = _composition_numbers(composition_wt_pct, "composition_wt_pct")
+    table = dict(VALENCES)
+    table["C"] = 0  # carbon in steels and cast irons is not oxidised to a dissolved ion
+    if valences:
+        if not isinstance(valences, dict):
+            raise InputError("valences", valences, "a mapping element -> valence")
+        for el, n in valences.items():
+            if isinstance(n, bool) or not isinstance(n, (int, float)) or n < 0 or not math.isfinite(n):
+                raise InputError(f"valences.{el}", n, "a valence of 0 or more")
+            table[el] = n
+    total = sum(comp.values())
+    terms, ignored, parts, inert = [], [], [], []
+    for el, pct in sorted(comp.items(), key=lambda kv: -kv[1]):
+        if pct < min_wt_pct:
+            ignored.append(el)
+            continue
+        if table.get(el) == 0:
+            inert.append(el)
+            continue
+        if el not in ATOMIC_WEIGHTS or el not in table:
+            raise DataError(f"composition_wt_pct.{el}: no valence or atomic weight stated for {el!r} "
+                            f"(known: {', '.join(sorted(set(ATOMIC_WEIGHTS) & set(table)))})")
+        n, w = table[el], ATOMIC_WEIGHTS[el]
+        term = n * (pct / 100.0) / w
+        terms.append((el, pct, n, w, term))
+        parts.append(f"{n}·{pct / 100:.4g}/{w:g}")
+    if not terms:
+        raise InputError("composition_wt_pct", composition_wt_pct, f"at least one element at {min_wt_pct:g} % or more")
+    ew = 1.0 / sum(t[4] for t in terms)
+    steps = (_step("Equivalent weight of the alloy (ASTM G102 Eq. 6)",
+                   "EW = 1 / Σ(n_i·f_i/W_i), elements < 1 % left out",
+                   "EW = 1 / (" + " + ".join(parts) + ")"
+                   + (f"; below 1 %, left out: {', '.join(ignored)}" if ignored else "")
+                   + (f"; not oxidised, left out: {', '.join(inert)}" if inert else ""),
+                   f"EW = {ew:.4g} g"),)
+    return EquivalentWeight(ew, tuple(terms), tuple(ignored + inert), total, steps)
+
+
+@dataclass(frozen=True)
+class FaradayRate:
+    """Penetration and mass-loss rates for one current density (ASTM G102 Eqs. 1-2)."""
+
+    current_density_uA_per_cm2: float
+    equivalent_weight_g: float
+    density_g_cm3: float
+    penetration_mm_per_year: float
+    mass_loss_g_per_m2_day: float
+    steps: tuple = field(default=())
+
+    def to_dict(self):
+        """The rate as plain data."""
+        out = asdict(self)
+        out["steps"] = list(self.steps)
+        return out
+
+
+def corrosion_rate(current_density_uA_per_cm2, equivalent_weight_g, density_g_cm3):
+    """Penetration and mass-loss rate of a uniformly corroding metal from its current density.
+
+    Args:
+        current_density_uA_per_cm2: anodic (corrosion) current density [µA/cm²]
+        equivalent_weight_g: equivalent weight of the metal [g]
+        density_g_cm3: density of the metal [g/cm³]
+
+    Returns:
+        a :class:`FaradayRate`: penetration [mm/y] and mass loss [g/(m²·d)]
+
+    References:
+        ASTM G102-89 (R2015) §4, Eq. (1) CR = K1·i·EW/ρ and Eq. (2) MR = K2·i·EW.
+
+    >>> r = corrosion_rate(1.0, 27.92, 7.87)          # iron at 1 µA/cm²
+    >>> round(r.penetration_mm_per_year * 1000, 1)    # µm/y
+    11.6
+    >>> round(r.mass_loss_g_per_m2_day, 4)
+    0.25
+    """
+    _number("current_density_uA_per_cm2", current_density_uA_per_cm2, "a current density of 0 or more in µA/cm²", low=0.0)
+    _number("equivalent_weight_g", equivalent_weight_g, "an equivalent weight above 0 g", low=0.0, strict=True)
+    _number("density_g_cm3", density_g_cm3, "a density above 0 g/cm³", low=0.0, strict=True)
+    i, ew, rho = float(current_density_uA_per_cm2), float(equivalent_weight_g), float(density_g_cm3)
+    cr = K1_MM * i * ew / rho
+    mr = K2_G_M2_D * i * ew
+    steps = (
+        _step("Penetration rate (ASTM G102 Eq. 1)", "CR = K1·i·EW/ρ, K1 = 3.27e-3 mm·g/(µA·cm·y)",
+              f"CR = 3.27e-3 × {i:g} × {ew:.4g} / {rho:g}", f"CR = {cr:.4g} mm/y"),
+        _step("Mass-loss rate (ASTM G102 Eq. 2)", "MR = K2·i·EW, K2 = 8.954e-3 g·cm²/(µA·m²·d)",
+              f"MR = 8.954e-3 × {i:g} × {ew:.4g}", f"MR = {mr:.4g} g/(m²·d)"),
+    )
+    return FaradayRate(i, ew, rho, cr, mr, steps)
+
+
+def _number(field_name, value, allowed, low=None, strict=False):
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        raise InputError(field_name, value, allowed)
+    if not math.isfinite(value):
+        raise InputError(field_name, value, allowed)
+    if low is not None and (value <= low if strict else value < low):
+        raise InputError(field_name, value, allowed)
+    return float(value)
+
+
+@dataclass(frozen=True)
+class MaterialFaradayData:
+    """What the G102 conversion needs from one material record."""
+
+    material_id: str
+    equivalent_weight_g: float
+    density_g_cm3: float
+    ew_basis: str  # "dataset" or "composition"
+    sources: tuple
+    steps: tuple
+    warnings: tuple
+
+
+def material_faraday_data(rec, field_name="material"):
+    """Equivalent weight and density of a material record, or an InputError saying why not.
+
+    The dataset's ``equivalent_weight_g`` is used where given (it carries a source); otherwise
+    the EW is computed from ``composition_wt_pct`` by :func:`equivalent_weight`. Where both are
+    given and differ by more than 3 %, a warning says so.
+
+    Args:
+        rec: a material record of the dataset [unitless]
+        field_name: the input field named in an error [unitless]
+
+    Returns:
+        a :class:`MaterialFaradayData` (EW in [g], density in [g/cm³])
+
+    References:
+        ASTM G102-89 (R2015) §5 and Table 1.
+
+    >>> d = material_faraday_data({"id": "demo-iron", "composition_wt_pct": {"Fe": 100}, "density_g_cm3": 7.874})
+    >>> (round(d.equivalent_weight_g, 2), d.ew_basis)
+    (27.92, 'composition')
+    """
+    mid = rec.get("id", "?")
+    ew_rec = rec.get("equivalent_weight_g")
+    comp = rec.get("composition_wt_pct")
+    if ew_rec is None and not comp:
+        words = " ".join(str(rec.get(k) or "") for k in ("family", "name", "id")).lower()
+        reason = rec.get("equivalent_weight_note") or _NO_DISSOLUTION.get(str(rec.get("family") or "").lower())
+        if reason is None and any(w in words for w in _NOBLE_WORDS):
+            reason = f"{rec.get('name', mid)} does not dissolve anodically in these waters, it serves as a cathode"
+        if reason is None:
+            reason = "the dataset gives neither an equivalent weight nor a composition for it"
+        raise InputError(field_name, mid, "a material with an equivalent weight for a Faraday (ASTM G102) rate", reason)
+    rho = rec.get("density_g_cm3")
+    if rho is None:
+        raise InputError(field_name, mid, "a material with a density for a Faraday (ASTM G102) rate",
+                         "the dataset gives no density for it")
+    steps, warnings, sources = [], [], []
+    computed = None
+    if comp:
+        try:
+            computed = equivalent_weight(comp, rec.get("equivalent_weight_valences"))
+        except (DataError, InputError):
+            if ew_rec is None:
+                raise
+            # the composition is only a cross-check when the dataset gives the EW itself
+            warnings.append({"field": field_name, "message":
+                             f"{mid}: the EW could not be recomputed from its composition; the dataset value is used"})
+    if ew_rec is not None:
+        ew, basis = float(ew_rec), "dataset"
+        if rec.get("equivalent_weight_source"):
+            sources.append(rec["equivalent_weight_source"])
+        steps.append(_step("Equivalent weight from the dataset", "EW (ASTM G102 Table 1 or computed by its method)",
+                           f"{mid}: EW = {ew:g} g", f"EW = {ew:g} g"))
+        if computed is not None:
+            steps.extend(computed.steps)
+            dev = abs(computed.value_g - ew) / ew
+            if dev > 0.03:
+                warnings.append({"field": field_name, "message":
+                                 f"{mid}: the dataset's EW {ew:g} g differs by {dev * 100:.0f} % from the EW "
+                                 f"{computed.value_g:.4g} g computed from its nominal composition; the dataset value is used"})
+    else:
+        ew, basis = computed.value_g, "composition"
+        steps.extend(computed.steps)
+        if rec.get("composition_source"):
+            sources.append(rec["composition_source"])
+    if rec.get("density_source"):
+        sources.append(rec["density_source"])
+    return MaterialFaradayData(mid, ew, float(rho), basis, tuple(sources), tuple(steps), tuple(warnings))
+
+
+_RATE_KEYS = ("material", "current_density_uA_per_cm2")
+
+
+def rate_entry(request):
+    """JSON entry point: ASTM G102 penetration and mass-loss rate of a named material.
+
+    Args:
+        request: ``{"material": id, alias or UNS, "current_density_uA_per_cm2": i}`` [unitless; i in µA/cm²]
+
+    Returns:
+        dict with material, penetration_mm_per_year [mm/y], mass_loss_g_per_m2_day [g/(m²·d)],
+        equivalent_weight_g [g], density_g_cm3 [g/cm³], steps, warnings, sources, data_version
+
+    References:
+        ASTM G102-89 (R2015) Eqs. (1), (2), (6) and Table 1.
+
+    >>> r = rate_entry({"material": "carbon steel", "current_density_uA_per_cm2": 1})
+    >>> round(r["penetration_mm_per_year"] * 1000, 1)   # µm/y
+    11.6
+    """
+    if not isinstance(request, dict):
+        raise InputError("request", type(request).__name__, "a JSON object")
+    unknown = sorted(set(request) - set(_RATE_KEYS))
+    if unknown:
+        raise InputError(unknown[0], request[unknown[0]], "one of the fields " + ", ".join(_RATE_KEYS))
+    if "material" not in request:
+        raise InputError("material", None, "a material id, alias or UNS number")
+    if "current_density_uA_per_cm2" not in request:
+        raise InputError("current_density_uA_per_cm2", None, "a current density of 0 or more in µA/cm²")
+    i = _number("current_density_uA_per_cm2", request["current_density_uA_per_cm2"],
+                "a current density of 0 or more in µA/cm²", low=0.0)
+    ds = current()
+    rec = ds.get("materials", request["material"], field="material")
+    fd = material_faraday_data(rec)
+    rate = corrosion_rate(i, fd.equivalent_weight_g, fd.density_g_cm3)
+    warnings = list(fd.warnings)
+    if i > HIGH_CURRENT_UA_CM2:
+        warnings.append({"field": "current_density_uA_per_cm2", "message":
+                         f"{i:g} µA/cm² is above {HIGH_CURRENT_UA_CM2:g} µA/cm² (100 A/m²), far beyond an "
+                         "oxygen-limited cathode in natural waters: check the units"})
+    for key in ("equivalent_weight_confidence", "density_confidence"):
+        if rec.get(key) == "recalled":
+            warnings.append({"field": "material", "message":
+                             f"{rec['id']}: {key.split('_confidence')[0].replace('_', ' ')} recalled, not re-read in its source"})
+    if str(rec.get("family") or "").lower() == "noble metal" and any(w in str(rec.get("name", "")).lower()
+                                                                      for w in ("platinum", "gold")):
+        warnings.append({"field": "material", "message":
+                         f"{rec.get('name', rec['id'])} hardly dissolves in natural waters: an anodic current on it goes "
+                         "mostly to oxygen or chlorine evolution, so this Faraday rate is an upper bound"})
+    sources = list(dict.fromkeys(fd.sources + (("astm-g102",) if ds.source("astm-g102") else ())))
+    return {
+        "material": rec["id"],
+        "material_name": rec.get("name", rec["id"]),
+        "current_density_uA_per_cm2": i,
+        "penetration_mm_per_year": rate.penetration_mm_per_year,
+        "penetration_um_per_year": rate.penetration_mm_per_year * 1000.0,
+        "mass_loss_g_per_m2_day": rate.mass_loss_g_per_m2_day,
+        "equivalent_weight_g": fd.equivalent_weight_g,
+        "equivalent_weight_basis": fd.ew_basis,
+        "density_g_cm3": fd.density_g_cm3,
+        "assumptions": [
+            "uniform corrosion over the whole surface (ASTM G102 assumes it; pits and crevices go deeper)",
+            "all of the anodic current dissolves the metal at the stated valences",
+        ],
+        "steps": list(fd.steps) + list(rate.steps),
+        "warnings": warnings,
+        "sources": sources,
+        "data_version": ds.version,
+    }

@@ -1,0 +1,67 @@
+// Small SVG charts drawn by our own code (no library, works offline). Text via textContent.
+const NS = "http://www.w3.org/2000/svg";
+
+function s(tag, attrs, text) {
+  const el = document.createElementNS(NS, tag);
+  for (const [k, v] of Object.entries(attrs || {})) el.setAttribute(k, String(v));
+  if (text !== undefined) el.textContent = text;
+  return el;
+}
+
+function niceTicks(lo, hi, count = 5) {
+  if (!(hi > lo)) { hi = lo + 1; }
+  const span = hi - lo;
+  const step0 = span / count;
+  const mag = Math.pow(10, Math.floor(Math.log10(step0)));
+  const step = [1, 2, 2.5, 5, 10].map((m) => m * mag).find((st) => span / st <= count + 0.5) || 10 * mag;
+  const ticks = [];
+  for (let t = Math.ceil(lo / step) * step; t <= hi + step * 1e-9; t += step) ticks.push(Number(t.toFixed(10)));
+  return ticks;
+}
+
+// lineChart({title, xLabel, yLabel, series: [{name, points: [[x, y]...], dash}], marker: [x, y], hLines: [{y, label}]})
+export function lineChart(opts) {
+  const W = 640, H = 340, L = 70, R = 20, T = 30, B = 50;
+  const pts = opts.series.flatMap((se) => se.points);
+  if (opts.marker) pts.push(opts.marker);
+  for (const hl of opts.hLines || []) pts.push([pts.length ? pts[0][0] : 0, hl.y]);
+  let xs = pts.map((p) => p[0]), ys = pts.map((p) => p[1]);
+  let x0 = Math.min(...xs), x1 = Math.max(...xs), y0 = Math.min(...ys), y1 = Math.max(...ys);
+  if (opts.xRange) [x0, x1] = opts.xRange;
+  if (y1 - y0 < 1e-3) { y0 -= 0.01; y1 += 0.01; }
+  const pad = (y1 - y0) * 0.08; y0 -= pad; y1 += pad;
+  const X = (x) => L + ((x - x0) / (x1 - x0 || 1)) * (W - L - R);
+  const Y = (y) => T + (1 - (y - y0) / (y1 - y0)) * (H - T - B);
+  const svg = s("svg", { viewBox: `0 0 ${W} ${H}`, class: "cw-chart", role: "img" });
+  svg.append(s("title", {}, opts.title || "chart"));
+  if (opts.desc) svg.append(s("desc", {}, opts.desc));
+  const axis = s("g", { class: "cw-axis" });
+  for (const t of niceTicks(x0, x1, 6)) {
+    axis.append(s("line", { x1: X(t), x2: X(t), y1: T, y2: H - B, class: "cw-grid" }));
+    axis.append(s("text", { x: X(t), y: H - B + 16, "text-anchor": "middle" }, opts.xFormat ? opts.xFormat(t) : String(t)));
+  }
+  for (const t of niceTicks(y0, y1, 6)) {
+    axis.append(s("line", { x1: L, x2: W - R, y1: Y(t), y2: Y(t), class: "cw-grid" }));
+    axis.append(s("text", { x: L - 6, y: Y(t) + 4, "text-anchor": "end" }, t.toFixed(Math.abs(y1 - y0) < 0.2 ? 3 : 2)));
+  }
+  axis.append(s("rect", { x: L, y: T, width: W - L - R, height: H - T - B, class: "cw-frame" }));
+  axis.append(s("text", { x: (L + W - R) / 2, y: H - 10, "text-anchor": "middle", class: "cw-axis-label" }, opts.xLabel || ""));
+  axis.append(s("text", { x: 16, y: (T + H - B) / 2, "text-anchor": "middle", transform: `rotate(-90 16 ${(T + H - B) / 2})`, class: "cw-axis-label" }, opts.yLabel || ""));
+  svg.append(axis);
+  for (const hl of opts.hLines || []) {
+    svg.append(s("line", { x1: L, x2: W - R, y1: Y(hl.y), y2: Y(hl.y), class: "cw-hline" }));
+    svg.append(s("text", { x: W - R - 4, y: Y(hl.y) - 4, "text-anchor": "end", class: "cw-hline-label" }, hl.label));
+  }
+  opts.series.forEach((se, i) => {
+    const d = se.points.map((p, j) => (j ? "L" : "M") + X(p[0]).toFixed(1) + " " + Y(p[1]).toFixed(1)).join(" ");
+    svg.append(s("path", { d, class: "cw-line cw-line-" + i, "stroke-dasharray": se.dash || (i ? "6 4" : "none") }));
+    const last = se.points[se.points.length - 1];
+    if (last && se.name) svg.append(s("text", { x: X(last[0]) - 4, y: Y(last[1]) - 6, "text-anchor": "end", class: "cw-line-label" }, se.name));
+  });
+  if (opts.marker) {
+    const [mx, my] = opts.marker;
+    svg.append(s("circle", { cx: X(mx), cy: Y(my), r: 6, class: "cw-marker" }));
+    svg.append(s("text", { x: X(mx) + 9, y: Y(my) + 4, class: "cw-marker-label" }, opts.markerLabel || "your conditions"));
+  }
+  return svg;
+}

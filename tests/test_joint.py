@@ -1,0 +1,479 @@
+"""Joints and pair tables (calc.joint), on the shipped dataset."""
+
+import csv
+import inspect
+import io
+import json
+import os
+import re
+import sys
+import time
+
+import pytest
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+if ROOT not in sys.path:  # run from anywhere without installing the package
+    sys.path.insert(0, ROOT)
+
+from calc import api  # noqa: E402
+from calc import joint as J  # noqa: E402
+from calc import rate as g102  # noqa: E402
+from calc.dataset import current  # noqa: E402
+from calc.errors import InputError  # noqa: E402
+
+SEA = "seawater-flowing"
+
+
+@pytest.fixture(scope="module")
+def ds():
+    return current()
+
+
+def mid(ds, name):
+    """Mid-point of a material's flowing-seawater range, read straight from the data [V vs SCE]."""
+    lo, hi = ds.get("materials", name)["seawater_range_V_SCE"]
+    return (lo + hi) / 2
+
+
+def env_with(ds, **match):
+    """The first environment whose fields match (so the test does not hard-code ids)."""
+    for e in ds.records("environments"):
+        if all(e.get(k) == v for k, v in match.items()):
+            return e["id"]
+    raise AssertionError(f"no environment with {match}")
+
+
+# ---------------------------------------------------------------- lookups
+
+
+def test_materials_resolve_by_id_alias_and_uns(ds):
+    by_uns = J.joint_entry({"a": "s31600", "b": "r50400", "env": SEA})
+    by_alias = J.joint_entry({"a": "316", "b": "CP Titanium", "env": "Flowing Seawater"})
+    assert by_uns["a"] == by_alias["a"] == ds.get("materials", "S31600")["id"]
+    assert ds.get("materials", by_uns["a"])["state"] == "passive"
+    assert by_uns["b"] == by_alias["b"] == ds.get("materials", "R50400")["id"]
+    assert by_uns["env"] == by_alias["env"] == SEA
+
+
+def test_unknown_material_gives_closest_matches():
+    out = api.call("joint", {"a": "titanum", "b": "zinc", "env": SEA})
+    assert not out["ok"] and out["error"]["field"] == "a"
+    assert "titanium" in out["error"]["message"]
+
+
+def test_unknown_environment():
+    out = api.call("joint", {"a": "titanium", "b": "zinc", "env": "lava"})
+    assert not out["ok"] and out["error"]["field"] == "env"
+
+
+def test_material_without_data_for_the_basis_is_refused(ds):
+    gold = ds.get("materials", "gold")
+    assert gold.get("seawater_range_V_SCE") is None  # the series has no gold row (ASTM G82 Fig. 1)
+    out = api.call("joint", {"a": "gold", "b": "zinc", "env": SEA})
+    assert not out["ok"] and out["error"]["field"] == "a" and "galvanic series" in out["error"]["message"]
+
+
+def test_unknown_and_missing_fields():
+    assert api.call("joint", {"a": "zinc", "b": "copper", "env": SEA, "ratio": 2})["error"]["field"] == "ratio"
+    assert api.call("joint", {"a": "zinc", "env": SEA})["error"]["field"] == "b"
+    assert api.call("joint", {"a": "zinc", "b": "copper"})["error"]["field"] == "env"
+
+
+# ---------------------------------------------------------------- the galvanic series
+
+
+# ASTM G82-98 (R2014) Fig. 1, reproducing LaQue (Marine Corrosion, 1975), flowing seawater: from the
+# active end, magnesium, zinc, aluminium alloys, mild steel, copper, 316 (passive), titanium, graphite
+SEAWATER_ORDER = ["magnesium", "zinc", "aluminium 5083", "carbon steel", "copper", "S31600", "R50400", "graphite"]
+
+
+@pytest.mark.parametrize("active,noble", list(zip(SEAWATER_ORDER, SEAWATER_ORDER[1:])))
+def test_seawater_series_order(ds, active, noble):
+    # ASTM G82-98 (R2014) Fig. 1 (after LaQue 1975): each metal is anodic to the next
+    r = J.joint_entry({"a": noble, "b": active, "env": SEA})
+    assert r["anode"] == ds.get("materials", active)["id"]
+    assert r["cathode"] == ds.get("materials", noble)["id"]
+    assert r["warnings"] == [] or all("recalled" in w["message"] for w in r["warnings"])
+
+
+def test_every_pair_anode_is_the_lower_potential(ds):
+    # Invariant over the whole table: the anode of every couple has the more negative mid-point
+    m = J.matrix_entry({"env": SEA})
+    ids = m["materials"]
+    mids = {i: mid(ds, i) for i in ids}
+    for i, a in enumerate(ids):
+        for j, b in enumerate(ids):
+            cell = m["cells"][i][j]
+            if abs(mids[a] - mids[b]) < 1e-9:
+                assert cell["anode"] is None
+            else:
+                assert cell["anode"] == (a if mids[a] < mids[b] else b)
+                assert cell["delta_E_V"] == pytest.approx(abs(mids[a] - mids[b]), abs=1e-4)
+
+
+def test_carbon_steel_on_passive_316_in_seawater_fails(ds):
+    # ASTM G82-98 (R2014) Fig. 1 (after LaQue 1975): mild steel -0.60 to -0.72 V SCE, 316 passive 0.00 to
+    # -0.10 V SCE: steel is the anode, ΔE of the mid-points 0.61 V, far above the 0.25 V rule of thumb
+    # (common practice)
+    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA})
+    assert r["anode"] == ds.get("materials", "carbon steel")["id"]
+    assert r["delta_E_V"] == pytest.approx(0.61, abs=0.005)
+    assert r["delta_E_range_V"] == pytest.approx([0.50, 0.72], abs=0.005)
+    assert r["verdict"] == "unsuited" and r["passes"] is False
+    assert r["allowable_V"] == pytest.approx(0.25) and r["allowable_source"]
+
+
+def test_titanium_with_passive_316_is_a_small_difference(ds):
+    # common practice: titanium and passive austenitic stainless steel sit close in seawater; acceptable
+    r = J.joint_entry({"a": "titanium", "b": "316", "env": SEA})
+    assert r["delta_E_V"] <= 0.10
+    assert r["passes"] is True and r["verdict"] != "unsuited"
+    # ... but 316 has an active state (ASTM G82 Fig. 1, -0.33 to -0.46 V): judged too, the worse one stated
+    active = ds.get("materials", "316")["other_state"]
+    assert r["worst_state"]["b"] == active and r["worst_state"]["verdict"] == "unsuited"
+    assert r["verdict"] == "guarded" and "active" in r["verdict_text"]
+
+
+def test_both_dual_state_parts_give_four_combinations(ds):
+    r = J.joint_entry({"a": "304", "b": "316", "env": SEA})
+    assert len(r["states"]) == 4
+    pairs = {(s["a"], s["b"]) for s in r["states"]}
+    assert len(pairs) == 4
+    assert r["states"][0]["a"] == r["a"] and r["states"][0]["b"] == r["b"]
+    worst = max(r["states"], key=lambda s: (J.TIERS.index(s["verdict"]), s["delta_E_V"]))
+    assert r["worst_state"] == worst
+
+
+def test_range_best_and_worst(ds):
+    # best = gap between the published ranges (0 when they overlap), worst = largest separation
+    r = J.joint_entry({"a": "copper", "b": "tin", "env": SEA})
+    cu, sn = ds.get("materials", "copper")["seawater_range_V_SCE"], ds.get("materials", "tin")["seawater_range_V_SCE"]
+    assert r["delta_E_range_V"][0] == 0.0  # the copper and tin ranges overlap (ASTM G82 Fig. 1)
+    assert r["delta_E_range_V"][1] == pytest.approx(max(cu[1] - sn[0], sn[1] - cu[0]), abs=1e-9)
+
+
+def test_series_used_outside_its_electrolyte_warns(ds):
+    # ASTM G82-98 (R2014) §5: a galvanic series is specific to the environment it was measured in
+    env = env_with(ds, basis="galvanic-series", series=SEA, id="seawater-quiescent")
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": env})
+    assert any("ASTM G82" in w["message"] and w["field"] == "env" for w in r["warnings"])
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA})
+    assert not any("ASTM G82" in w["message"] for w in r["warnings"])
+
+
+def test_anodic_index_basis_for_an_immersed_electrolyte_warns():
+    # ASTM G82 §5 and the legacy table's scope (equipment in air): an immersed electrolyte needs a series
+    basis = J.basis_of({"id": "demo-immersed", "name": "Demo tank", "basis": "anodic-index", "severity": "harsh",
+                        "allowable_V": 0.15, "ionic_strength_mol_per_kg": 0.1})
+    assert basis.immersed
+    warnings = J._basis_warnings(basis, {}, current())
+    assert len(warnings) == 1 and "immersed" in warnings[0]["message"]
+
+
+# ---------------------------------------------------------------- anodic-index limits
+
+
+def _index_pair(ds, a, b, delta):
+    ia, ib = ds.get("materials", a)["anodic_index_V"], ds.get("materials", b)["anodic_index_V"]
+    assert abs(ia - ib) == pytest.approx(delta, abs=1e-9), (a, b, ia, ib)
+
+
+def test_anodic_index_harsh_boundary_is_inclusive(ds):
+    # legacy anodic-index table: silver 0.15 V, nickel 0.30 V, titanium 0.30 V, 18 % Cr steels 0.50 V;
+    # harsh environments allow ΔE ≤ 0.15 V (limit inclusive)
+    harsh = env_with(ds, basis="anodic-index", severity="harsh")
+    _index_pair(ds, "silver", "nickel", 0.15)
+    r = J.joint_entry({"a": "silver", "b": "nickel", "env": harsh})
+    assert r["allowable_V"] == pytest.approx(0.15)
+    assert r["passes"] is True and r["verdict"] == "compatible"
+    _index_pair(ds, "titanium", "316", 0.20)
+    r = J.joint_entry({"a": "titanium", "b": "316", "env": harsh})
+    assert r["passes"] is False and r["verdict"] == "unsuited"
+    assert r["anode"] == ds.get("materials", "316")["id"]  # the larger index is the anode
+
+
+def test_anodic_index_normal_boundary(ds):
+    # legacy anodic-index table: normal environments allow ΔE ≤ 0.25 V; copper 0.35, chromium plate 0.60,
+    # titanium 0.30, 18 % Cr steels 0.50, tin-lead solder 0.65
+    normal = env_with(ds, basis="anodic-index", severity="normal")
+    _index_pair(ds, "titanium", "316", 0.20)
+    assert J.joint_entry({"a": "titanium", "b": "316", "env": normal})["passes"] is True
+    _index_pair(ds, "copper", "chrome plate", 0.25)
+    r = J.joint_entry({"a": "copper", "b": "chrome plate", "env": normal})
+    assert r["passes"] is True and r["verdict"] == "compatible"
+    _index_pair(ds, "titanium", "tin-lead solder", 0.35)
+    assert J.joint_entry({"a": "titanium", "b": "tin-lead solder", "env": normal})["verdict"] == "unsuited"
+
+
+def test_anodic_index_controlled_boundary(ds):
+    # legacy anodic-index table: controlled environments allow ΔE ≤ 0.50 V; gold 0.00, 18 % Cr steels 0.50,
+    # chromium plate 0.60
+    controlled = env_with(ds, basis="anodic-index", severity="controlled")
+    _index_pair(ds, "gold", "316", 0.50)
+    assert J.joint_entry({"a": "gold", "b": "316", "env": controlled})["passes"] is True
+    _index_pair(ds, "gold", "chrome plate", 0.60)
+    assert J.joint_entry({"a": "gold", "b": "chrome plate", "env": controlled})["passes"] is False
+
+
+@pytest.mark.parametrize("limit", [0.15, 0.25, 0.50])
+def test_tier_boundaries(limit):
+    # legacy anodic-index table limits 0.15 / 0.25 / 0.50 V, inclusive; float noise (0.65 - 0.50) must pass
+    assert J.tier_for(limit, limit, limit) == "compatible"
+    assert J.tier_for(0.65 - 0.50, 0.65 - 0.50, 0.15) == "compatible"
+    assert J.tier_for(limit + 0.001, limit + 0.001, limit) == "unsuited"
+    assert J.tier_for(limit - 0.01, limit + 0.01, limit) == "guarded"
+    assert J.tier_for(0.05, 0.05, limit, 0.05) == "matched"
+    assert J.tier_for(0.051, 0.051, limit, 0.05) == "compatible"
+
+
+# ---------------------------------------------------------------- area ratio and rate
+
+
+def test_small_anode_on_large_cathode_corrodes_faster():
+    # common practice (catchment principle): the anode's attack scales with the cathode/anode area ratio
+    small_anode = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA, "area_ratio": 10})
+    large_anode = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA, "area_ratio": 0.1})
+    hi, lo = small_anode["rate_mm_per_year"], large_anode["rate_mm_per_year"]
+    assert hi[0] > lo[0] and hi[1] > lo[1]
+    assert hi[0] / lo[0] == pytest.approx(100, rel=1e-4)
+    assert hi[1] / lo[1] == pytest.approx(100, rel=1e-4)
+
+
+def test_rate_is_g102_of_the_collected_current(ds):
+    # i_a = i_c × A_c/A_a, converted by ASTM G102 Eq. (1) with the anode's EW and density
+    env = ds.get("environments", SEA)
+    lo, hi = env["cathodic_current_density_uA_per_cm2"]
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA, "area_ratio": 3})
+    assert r["rate"]["kind"] == "screening estimate" and r["rate"]["anode"] == ds.get("materials", "zinc")["id"]
+    zn_lo = g102.rate_entry({"material": "zinc", "current_density_uA_per_cm2": lo * 3})["penetration_mm_per_year"]
+    zn_hi = g102.rate_entry({"material": "zinc", "current_density_uA_per_cm2": hi * 3})["penetration_mm_per_year"]
+    assert r["rate_mm_per_year"] == pytest.approx([zn_lo, zn_hi], rel=1e-5)
+    assert "free corrosion" in r["rate"]["note"]
+    assert any("free corrosion" in a for a in r["assumptions"])
+    assert any("screening" in a for a in r["assumptions"])
+
+
+def test_no_rate_without_a_current_density(ds):
+    harsh = env_with(ds, basis="anodic-index", severity="harsh")
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": harsh})
+    assert r["rate_mm_per_year"] is None and r["rate"] is None and r["rate_reason"]
+
+
+def test_no_rate_for_an_anode_without_equivalent_weight(ds):
+    # graphite has no equivalent weight in the dataset; a graphite anode needs a nobler partner: platinum's
+    # range overlaps graphite's, so pick the pair where graphite comes out as the anode, if any
+    graphite = ds.get("materials", "graphite")
+    assert graphite.get("equivalent_weight_g") is None
+    basis = J.basis_of(ds.get("environments", SEA))
+    fake = J.Pairing("graphite", "x", "graphite", "x", 0.3, 0.2, 0.4, "unsuited")
+    rate, reason = J._rate(ds, ds.get("environments", SEA), basis, fake, 1.0,
+                           {"graphite": "Graphite", "x": "x"}, {"graphite": graphite})
+    assert rate is None and "Graphite" in reason
+
+
+def test_area_ratio_assumed_one_when_not_given():
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA})
+    assert r["area_ratio"] == 1.0 and r["area_ratio_given"] is False
+    assert any("area_ratio not given" in a for a in r["assumptions"])
+
+
+@pytest.mark.parametrize("value", [0, -1, float("nan"), float("inf"), "2", True, [2]])
+def test_area_ratio_must_be_positive_and_finite(value):
+    with pytest.raises(InputError) as exc:
+        J.joint_entry({"a": "zinc", "b": "copper", "env": SEA, "area_ratio": value})
+    assert exc.value.field == "area_ratio"
+
+
+@pytest.mark.parametrize("value,warns", [(1000, False), (1000.5, True), (0.001, False), (0.0009, True)])
+def test_area_ratio_extremes_warn(value, warns):
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA, "area_ratio": value})
+    assert any(w["field"] == "area_ratio" for w in r["warnings"]) is warns
+
+
+# ---------------------------------------------------------------- advice
+
+
+def test_mitigations_for_a_failing_immersed_joint():
+    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA, "area_ratio": 20})
+    ids = [m["id"] for m in r["mitigations"]]
+    assert {"isolate", "coat-cathode", "noble-fastener", "cathodic-protection"} <= set(ids)
+    coat = next(m for m in r["mitigations"] if m["id"] == "coat-cathode")
+    assert "only the anode" in coat["text"]  # the caution: coating only the anode concentrates the attack
+    assert all(set(m) == {"id", "text", "reason"} and m["reason"] for m in r["mitigations"])
+
+
+def test_no_cathodic_protection_advice_in_air(ds):
+    harsh = env_with(ds, basis="anodic-index", severity="harsh")
+    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": harsh})
+    assert r["verdict"] == "unsuited"
+    ids = [m["id"] for m in r["mitigations"]]
+    assert "cathodic-protection" not in ids and "seal" in ids and "isolate" in ids
+
+
+def test_alternatives_pass_against_the_kept_partner(ds):
+    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA})
+    assert [x["replace"] for x in r["alternatives"]] == [r["a"], r["b"]]
+    for alt in r["alternatives"]:
+        opts = alt["options"]
+        assert 0 < len(opts) <= J.N_ALTERNATIVES
+        keys = [(J.TIERS.index(o["verdict"]), -o["margin_V"]) for o in opts]
+        assert keys == sorted(keys)  # best tier first, then by margin
+        for o in opts:
+            assert o["verdict"] != "unsuited" and o["margin_V"] >= 0
+            assert o["material"] not in (r["a"], r["b"])
+            assert ds.get("materials", o["material"]).get("state") != "active"
+            again = J.joint_entry({"a": o["material"], "b": alt["keep"], "env": SEA})
+            assert again["verdict"] == o["verdict"] and again["delta_E_V"] == o["delta_E_V"]
+
+
+def test_cautions_defer_to_standards_and_professionals():
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA})
+    text = " ".join(r["cautions"]).lower()
+    assert "screening" in text and "qualified corrosion professional" in text
+    for word in ("crevices", "flow", "temperature", "biofilm", "coatings", "geometry", "potable", "pressure"):
+        assert word in text
+
+
+def test_result_shape_and_json(ds):
+    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA, "area_ratio": 4})
+    for key in ("anode", "cathode", "basis", "delta_E_V", "delta_E_range_V", "allowable_V", "negligible_V",
+                "verdict", "verdict_text", "mitigations", "alternatives", "cautions", "steps", "sources",
+                "data_version", "assumptions", "warnings", "rate_mm_per_year"):
+        assert key in r, key
+    assert r["basis"] == "galvanic-series" and r["basis_description"] and r["series"] == SEA
+    assert r["basis_source"] == ds.get("materials", "zinc")["seawater_source"]
+    assert r["verdict"] in J.TIERS and r["verdict_text"].endswith(".")
+    assert all(set(s) == {"title", "formula", "substituted", "result"} for s in r["steps"])
+    assert r["data_version"] == ds.version
+    for sid in r["sources"]:
+        assert ds.source(sid) is not None, sid
+    json.dumps(r, allow_nan=False)
+
+
+def test_same_material_is_no_couple():
+    r = J.joint_entry({"a": "copper", "b": "Cu", "env": SEA})
+    assert r["anode"] is None and r["delta_E_V"] == 0 and r["rate_mm_per_year"] is None
+    assert r["verdict"] in ("matched", "compatible")
+
+
+# ---------------------------------------------------------------- the pair table
+
+
+def test_matrix_defaults_to_every_material_with_data(ds):
+    for env in (SEA, env_with(ds, basis="anodic-index", severity="harsh")):
+        m = J.matrix_entry({"env": env})
+        field = "seawater_range_V_SCE" if m["basis"] == "galvanic-series" else "anodic_index_V"
+        expected = [r["id"] for r in ds.records("materials") if r.get(field) is not None]
+        assert m["materials"] == expected
+        n = len(expected)
+        assert len(m["cells"]) == n and all(len(row) == n for row in m["cells"])
+        for i in range(n):
+            assert m["cells"][i][i]["anode"] is None and m["cells"][i][i]["delta_E_V"] == 0
+            for j in range(n):
+                assert m["cells"][i][j] == m["cells"][j][i]
+
+
+def test_matrix_agrees_with_joint(ds):
+    m = J.matrix_entry({"env": SEA})
+    ids = m["materials"]
+    n = len(ids)
+    pairs = [(i, j) for i in range(n) for j in range(i + 1, n) if (i * 7 + j * 3) % 23 == 0]
+    pairs += [(ids.index(ds.get("materials", "316")["id"]), j) for j in range(n)]
+    for i, j in pairs:
+        if i == j:
+            continue
+        r = J.joint_entry({"a": ids[i], "b": ids[j], "env": SEA})
+        cell = m["cells"][i][j]
+        assert (cell["verdict"], cell["anode"], cell["delta_E_V"]) == (r["verdict"], r["anode"], r["delta_E_V"])
+
+
+def test_matrix_csv(ds):
+    m = J.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"]})
+    lines = m["csv"].splitlines()
+    assert lines[0].startswith("#") and ds.version in lines[0]
+    rows = list(csv.reader(io.StringIO("\n".join(lines[1:]))))
+    assert rows[0] == ["a", "b", "anode", "delta_E_V", "verdict"]
+    assert len(rows) == 1 + 4 * 3 // 2
+    for a, b, anode, d, verdict in rows[1:]:
+        i, j = m["materials"].index(a), m["materials"].index(b)
+        assert float(d) == pytest.approx(m["cells"][i][j]["delta_E_V"], abs=1e-4)
+        assert verdict == m["cells"][i][j]["verdict"] and anode == (m["cells"][i][j]["anode"] or "")
+
+
+def test_matrix_input_errors():
+    assert api.call("matrix", {"env": SEA, "materials": ["zinc", "nope-metal"]})["error"]["field"] == "materials[1]"
+    assert api.call("matrix", {"env": SEA, "materials": []})["error"]["field"] == "materials"
+    assert api.call("matrix", {"env": SEA, "materials": "zinc"})["error"]["field"] == "materials"
+    assert api.call("matrix", {})["error"]["field"] == "env"
+    assert api.call("matrix", {"env": SEA, "cols": 1})["error"]["field"] == "cols"
+
+
+def test_matrix_is_fast(ds):
+    # all pairs of every seawater material (about 50): well under 100 ms in CPython (best of 3)
+    m = J.matrix_entry({"env": SEA})
+    assert len(m["materials"]) >= 45
+    best = min(_timed(lambda: J.matrix_entry({"env": SEA})) for _ in range(3))
+    assert best < 0.1, f"{best * 1000:.0f} ms"
+
+
+def _timed(fn):
+    t = time.perf_counter()
+    fn()
+    return time.perf_counter() - t
+
+
+# ---------------------------------------------------------------- robustness and documentation
+
+
+_NAMES = st.one_of(st.sampled_from(["zinc", "316", "S31600", "graphite", "gold", "copper", "carbon steel"]),
+                   st.text(max_size=12), st.none(), st.integers(), st.floats())
+_ENVS = st.one_of(st.sampled_from([SEA, "marine-atmosphere", "indoor-controlled", "seawater-quiescent"]),
+                  st.text(max_size=12), st.none())
+_RATIOS = st.one_of(st.none(), st.floats(allow_nan=True, allow_infinity=True), st.integers(), st.text(max_size=3))
+
+
+@settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(a=_NAMES, b=_NAMES, env=_ENVS, ratio=_RATIOS)
+def test_joint_any_input_gives_a_result_or_a_clear_error(a, b, env, ratio):
+    req = {"a": a, "b": b, "env": env}
+    if ratio is not None:
+        req["area_ratio"] = ratio
+    out = api.call("joint", req)
+    if out["ok"]:
+        json.dumps(out["result"], allow_nan=False)
+    else:
+        assert out["error"]["field"] and out["error"]["message"]
+
+
+@settings(max_examples=40, deadline=None)
+@given(env=_ENVS, mats=st.one_of(st.none(), st.lists(_NAMES, max_size=4)))
+def test_matrix_any_input_gives_a_result_or_a_clear_error(env, mats):
+    req = {"env": env}
+    if mats is not None:
+        req["materials"] = mats
+    out = api.call("matrix", req)
+    if out["ok"]:
+        json.dumps(out["result"], allow_nan=False)
+    else:
+        assert out["error"]["field"] and out["error"]["message"]
+
+
+def _public_functions(module):
+    for name, fn in inspect.getmembers(module, inspect.isfunction):
+        if not name.startswith("_") and fn.__module__ == module.__name__:
+            yield name, fn
+
+
+@pytest.mark.parametrize("module", [J, g102], ids=["joint", "rate"])
+def test_public_functions_document_units_references_and_examples(module):
+    for name, fn in _public_functions(module):
+        doc = inspect.getdoc(fn) or ""
+        assert ">>>" in doc, f"{name}: no doctest example"
+        for param in inspect.signature(fn).parameters:
+            m = re.search(rf"^\s*{param}: (.+)$", doc, re.M)
+            assert m, f"{name}: parameter {param} has no description"
+            assert re.search(r"\[[^\]]+\]\s*$", m.group(1)), f"{name}: parameter {param} has no [unit]"
+        if fn.__code__.co_argcount:
+            assert "References:" in doc, f"{name}: no references"
