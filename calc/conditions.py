@@ -145,11 +145,13 @@ def read_conditions(req, prefix=""):
         origin = "given"
     elif req.get("env") is not None:
         env = req["env"]
+        environment_ionic_strength(env, prefix + "env")  # checked now, even when no molality needs it
         origin = "env"
     elif req.get("composition") is not None:
         if not isinstance(req["composition"], dict):
             raise InputError(prefix + "composition", req["composition"], "a mapping {ion: molality}")
         comp = dict(req["composition"])
+        ionic_strength(comp)  # checked now, even when no molality needs it
         origin = "composition"
     model = check_model(req.get("model"), prefix + "model")
     return Conditions(t, acts, mols, press, pH, model, I, origin, comp, env)
@@ -358,5 +360,9 @@ def note_unused(cond, used, d, prefix=""):
             if counted:
                 continue  # it entered the ionic strength: a counter-ion
             d.warn(f"{prefix}molalities.{name}", f"{name} is not in the half-reaction(s): its molality was not used")
+    if cond.ionic_strength_origin in ("given", "env", "composition") and \
+            not any(f == "molalities" for f, _ in used):
+        field = {"given": "ionic_strength"}.get(cond.ionic_strength_origin, cond.ionic_strength_origin)
+        d.warn(prefix + field, "the ionic strength was not used: it matters only for species given by molality")
     if cond.pH is not None and ("pH", "") not in used:
         d.warn(f"{prefix}pH", f"pH {fmt(cond.pH)} was not used: no H+ or OH- in the half-reaction(s)")

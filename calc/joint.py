@@ -147,7 +147,8 @@ def basis_of(env, series_name=None):
     if kind == "galvanic-series":
         series = env.get("series") or eid
         prefix = _series_prefix(series)
-        desc = (f"galvanic series measured in {series_name or series}: steady corrosion potentials as ranges in V vs SCE; "
+        desc = (f"galvanic series measured in {series_name or series}: steady corrosion potentials as ranges "
+                "in V vs SCE; "
                 "the mid-point of a range is the nominal potential and the more negative metal is the anode")
         return Basis(kind, eid, name, series, f"{prefix}_range_V_SCE", f"{prefix}_source", f"{prefix}_confidence",
                      float(allow), env.get("allowable_source", ""), neg, env.get("severity") or "",
@@ -320,7 +321,7 @@ def _states(ds, rec, basis):
     return out
 
 
-def _judge(ds, rec_a, rec_b, basis, pos_a=None, pos_b=None):
+def _judge(ds, rec_a, rec_b, basis):
     """Primary pairing, every state combination, and the tier after the state check."""
     states_a, states_b = _states(ds, rec_a, basis), _states(ds, rec_b, basis)
     combos = [compare(pa, pb, basis) for _, pa in states_a for _, pb in states_b]
@@ -401,11 +402,12 @@ def _basis_warnings(basis, env, ds):
 
 
 def _confidence_warnings(positions, basis, names):
+    what = "position in the galvanic series" if basis.kind == "galvanic-series" else "anodic index"
     out = []
     for p in positions:
         if p.confidence == "recalled":
             out.append({"field": "material", "message":
-                        f"{names[p.material_id]}: its {basis.value_field} value is recalled, not re-read in its source"})
+                        f"{names[p.material_id]}: its {what} is recalled, not re-read in its source"})
     return out
 
 
@@ -446,7 +448,8 @@ def _tier_text(tier, primary, rec_a, rec_b, basis, state_worst, state_demoted, n
                    f"{names.get(other.anode, 'neither')} as the anode, beyond the limit")
         else:
             why = f"but the published ranges allow up to {_v(primary.worst_V)} V, beyond the limit"
-        return f"{head}; that is within the {allow} V allowed in {env} as named, {why}: join them only with precautions."
+        return (f"{head}; that is within the {allow} V allowed in {env} as named, {why}: "
+                "join them only with precautions.")
     if tier == "matched":
         return (f"{head}; the difference of {d} V is inside the {_v(basis.negligible_V)} V treated as negligible "
                 f"in {env}, so the galvanic effect does not matter.")
@@ -650,7 +653,8 @@ def judge_joint(a, b, env, area_ratio=None):
     # steps
     steps = []
     if basis.kind == "galvanic-series":
-        steps.append(_step("Basis of comparison", "galvanic series of the environment; allowable ΔE from the environment",
+        steps.append(_step("Basis of comparison",
+                           "galvanic series of the environment; allowable ΔE from the environment",
                            f"{basis.env_name}: series measured in {_series_name(ds, envrec)}",
                            f"allowable {_v(basis.allowable_V)} V" +
                            (f", negligible {_v(basis.negligible_V)} V" if basis.negligible_V is not None else "")))
@@ -691,6 +695,8 @@ def judge_joint(a, b, env, area_ratio=None):
         ("nominal potential = mid-point of each published range; the range spread gives best and worst cases"
          if basis.kind == "galvanic-series" else "one anodic-index value per metal group; no spread is published"),
         "the limit is inclusive: ΔE equal to the allowable passes",
+        *([f"the allowable {_v(basis.allowable_V)} V for {basis.env_name} is a rule of thumb of the trade, "
+           "not a standard"] if envrec.get("allowable_source") == "common-practice" else []),
         (f"area_ratio = {ratio:g}: wetted area of the cathode over the anode" if ratio_given
          else "area_ratio not given: equal wetted areas assumed (1)"),
     ]
@@ -704,6 +710,10 @@ def judge_joint(a, b, env, area_ratio=None):
             "to the joint",
             "the anode's own free corrosion is not included",
         ]
+        if envrec.get("cathodic_current_density_confidence") in ("recalled", "computed"):
+            assumptions.append(f"the cathodic current density of {basis.env_name} is provisional "
+                               f"({envrec['cathodic_current_density_confidence']}): the rate is good to its order "
+                               "of magnitude at best")
         if rec_by_id[primary.anode].get("state") == "passive":
             assumptions.append("the anode is a passive alloy: its current may go into its film or concentrate at a "
                                "crevice or pit rather than spread evenly")

@@ -236,7 +236,8 @@ def corrosion_rate(current_density_uA_per_cm2, equivalent_weight_g, density_g_cm
     >>> round(r.mass_loss_g_per_m2_day, 4)
     0.25
     """
-    _number("current_density_uA_per_cm2", current_density_uA_per_cm2, "a current density of 0 or more in µA/cm²", low=0.0)
+    _number("current_density_uA_per_cm2", current_density_uA_per_cm2, "a current density of 0 or more in µA/cm²",
+            low=0.0)
     _number("equivalent_weight_g", equivalent_weight_g, "an equivalent weight above 0 g", low=0.0, strict=True)
     _number("density_g_cm3", density_g_cm3, "a density above 0 g/cm³", low=0.0, strict=True)
     i, ew, rho = float(current_density_uA_per_cm2), float(equivalent_weight_g), float(density_g_cm3)
@@ -333,7 +334,8 @@ def material_faraday_data(rec, field_name="material"):
             if dev > 0.03:
                 warnings.append({"field": field_name, "message":
                                  f"{mid}: the dataset's EW {ew:g} g differs by {dev * 100:.0f} % from the EW "
-                                 f"{computed.value_g:.4g} g computed from its nominal composition; the dataset value is used"})
+                                 f"{computed.value_g:.4g} g computed from its nominal composition; "
+                                 "the dataset value is used"})
     else:
         ew, basis = computed.value_g, "composition"
         steps.extend(computed.steps)
@@ -387,12 +389,13 @@ def rate_entry(request):
     for key in ("equivalent_weight_confidence", "density_confidence"):
         if rec.get(key) == "recalled":
             warnings.append({"field": "material", "message":
-                             f"{rec['id']}: {key.split('_confidence')[0].replace('_', ' ')} recalled, not re-read in its source"})
-    if str(rec.get("family") or "").lower() == "noble metal" and any(w in str(rec.get("name", "")).lower()
-                                                                      for w in ("platinum", "gold")):
+                             f"{rec['id']}: {key.split('_confidence')[0].replace('_', ' ')} recalled, "
+                             "not re-read in its source"})
+    noble = str(rec.get("family") or "").lower() == "noble metal"
+    if noble and any(w in str(rec.get("name", "")).lower() for w in ("platinum", "gold")):
         warnings.append({"field": "material", "message":
-                         f"{rec.get('name', rec['id'])} hardly dissolves in natural waters: an anodic current on it goes "
-                         "mostly to oxygen or chlorine evolution, so this Faraday rate is an upper bound"})
+                         f"{rec.get('name', rec['id'])} hardly dissolves in natural waters: an anodic current on it "
+                         "goes mostly to oxygen or chlorine evolution, so this Faraday rate is an upper bound"})
     sources = list(dict.fromkeys(fd.sources + (("astm-g102",) if ds.source("astm-g102") else ())))
     return {
         "material": rec["id"],

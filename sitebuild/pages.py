@@ -264,6 +264,23 @@ class _Pages:
         lines.append(self.footer("../sources.md"))
         return "\n".join(lines)
 
+    def _leftovers(self, rec, shown, where, what, link):
+        """Rows for fields no renderer knows, so that no data value is ever dropped silently."""
+        rows = []
+        for key, value in rec.items():
+            if key in shown or key.endswith(("_source", "_confidence")) or key in ("source", "confidence"):
+                continue
+            if value is None or value == [] or value == {}:
+                continue
+            prefix = key
+            for p in _prefixes(key):
+                if f"{p}_source" in rec:
+                    prefix = p
+                    break
+            rows.append((esc(key.replace("_", " ")), _value_text(value)
+                         + self.cite(rec, prefix, where=where, what=f"{key} of {what}", link=link)))
+        return rows
+
     def material(self, m, by_id):
         mid = m.get("id")
         name = m.get("name") or mid
@@ -275,6 +292,7 @@ class _Pages:
         def cite(prefix, what):
             return self.cite(m, prefix, where=src, what=f"{what} of {name}", link=link)
 
+        shown = {"id", "name", "note"}
         rows = [("Id", f"`{_code(mid)}`")]
         if m.get("aliases"):
             rows.append(("Also known as", ", ".join(esc(a) for a in m["aliases"])))
@@ -282,6 +300,7 @@ class _Pages:
             rows.append(("UNS", ", ".join(esc(u) for u in uns)))
         if m.get("family"):
             rows.append(("Family", esc(m["family"])))
+        shown |= {"aliases", "uns", "family", "state", "other_state"}
         state = m.get("state")
         other = by_id.get(m.get("other_state"))
         if state:
@@ -291,27 +310,40 @@ class _Pages:
                          f"[{esc(other.get('name'))}]({material_file(other.get('id'))})")
             rows.append(("State", text))
         rng = m.get("seawater_range_V_SCE")
+        shown.add("seawater_range_V_SCE")
         if rng is not None:
-            rows.append(("Flowing seawater range",
-                         _pair_text(rng, "V vs SCE", places=2) + " (active end to noble end)" + cite("seawater", "seawater range")))
+            rows.append(("Flowing seawater range", _pair_text(rng, "V vs SCE", places=2)
+                         + " (active end to noble end)" + cite("seawater", "seawater range")))
+        shown |= {"anodic_index_V", "anodic_index_group"}
         if m.get("anodic_index_V") is not None:
-            rows.append(("Anodic index (legacy table)", _num(m["anodic_index_V"], 2) + " V" + cite("anodic_index", "anodic index")))
+            group = f" (group: {esc(m['anodic_index_group'])})" if m.get("anodic_index_group") else ""
+            rows.append(("Anodic index (legacy table)", _num(m["anodic_index_V"], 2) + " V" + group
+                         + cite("anodic_index", "anodic index")))
+        shown.add("density_g_cm3")
         if m.get("density_g_cm3") is not None:
             rows.append(("Density", _num(m["density_g_cm3"], 2) + " g/cm³" + cite("density", "density")))
-        if m.get("equivalent_weight_g") is not None:
-            rows.append(("Equivalent weight (ASTM G102)",
-                         _num(m["equivalent_weight_g"], 2) + " g" + cite("equivalent_weight", "equivalent weight")))
+        shown |= {"equivalent_weight_g", "equivalent_weight_note", "equivalent_weight_valences"}
+        if "equivalent_weight_g" in m:
+            ew = m.get("equivalent_weight_g")
+            text = (_num(ew, 2) + " g") if ew is not None else "none"
+            val = m.get("equivalent_weight_valences")
+            if isinstance(val, dict) and val:
+                text += " from valences " + ", ".join(f"{esc(el)} {_num(v)}" for el, v in val.items())
+            if m.get("equivalent_weight_note"):
+                text += ": " + esc(m["equivalent_weight_note"])
+            rows.append(("Equivalent weight (ASTM G102)", text + cite("equivalent_weight", "equivalent weight")))
         comp = m.get("composition_wt_pct")
+        shown.add("composition_wt_pct")
         if isinstance(comp, dict) and comp:
             text = ", ".join(f"{esc(el)} {_num(v)}" for el, v in comp.items()) + " wt% (nominal)"
-            has_own = "composition_source" in m
-            rows.append(("Composition", text + (cite("composition", "composition") if has_own
-                                                 else cite("equivalent_weight", "composition"))))
+            prefix = "composition" if "composition_source" in m else "equivalent_weight"
+            rows.append(("Composition", text + cite(prefix, "composition")))
+        rows += self._leftovers(m, shown, src, name, link)
         lines = [f"# {title}", ""]
-        if m.get("note"):
-            lines += [f"Note: {esc(m['note'])}", ""]
         lines += ["| Property | Value |", "|---|---|"]
         lines += [f"| {k} | {v} |" for k, v in rows]
+        if m.get("note"):
+            lines += ["", f"Note: {esc(m['note'])}"]
         lines += ["", "See where it sits among the others in the [galvanic series](../galvanic-series.md) "
                       "and the [list of materials](index.md)."]
         used = []
@@ -357,8 +389,15 @@ class _Pages:
             alias_txt = ("<br>also: " + ", ".join(esc(a) for a in aliases)) if aliases else ""
             lines.append(f"| <span id=\"{anchor}\"></span>**{esc(rid)}**<br>{esc(r.get('name'))}{alias_txt} | {e} | "
                          f"{model_txt} | {valid_txt} | {msrc or '–'} |")
+            parts = []
             if r.get("note"):
-                notes.append(f"- [{esc(rid)}](#{anchor}): {esc(r['note'])}")
+                parts.append(esc(r["note"]))
+            if r.get("spread"):
+                parts.append("Published values: " + esc(r["spread"]))
+            if isinstance(model, dict) and model.get("note"):
+                parts.append("Temperature model: " + esc(model["note"]))
+            if parts:
+                notes.append(f"- [{esc(rid)}](#{anchor}): " + " ".join(parts))
         if notes:
             lines += ["", "## Notes", ""] + notes
         lines.append(self.footer("sources.md"))
@@ -382,31 +421,46 @@ class _Pages:
             def cite(prefix, what, e=e, eid=eid, link=link):
                 return self.cite(e, prefix, where="sources.md", what=f"{what} of {eid}", link=link)
 
-            lines += [f"## {esc(e.get('name') or eid)} {{#{anchor}}}", "", "| Property | Value |", "|---|---|",
-                      f"| Id | `{_code(eid)}` |"]
+            shown = {"id", "name", "note", "aliases", "basis", "series", "severity", "allowable_V", "negligible_V",
+                     "temperature_range_C", "ionic_strength_mol_per_kg", "resistivity_ohm_m",
+                     "cathodic_current_density_uA_per_cm2", "cathodic_current_density_note", "atmospheric_corrosivity"}
+            rows = [("Id", f"`{_code(eid)}`")]
+            if e.get("aliases"):
+                rows.append(("Also known as", ", ".join(esc(a) for a in e["aliases"])))
             if e.get("basis"):
-                lines.append(f"| Basis | {esc(e['basis'])} |")
+                rows.append(("Basis", esc(e["basis"])))
             if e.get("series"):
-                lines.append(f"| Galvanic series | [{esc(e['series'])}](galvanic-series.md) |")
+                rows.append(("Galvanic series", f"[{esc(e['series'])}](galvanic-series.md)"))
             if e.get("severity"):
-                lines.append(f"| Severity | {esc(e['severity'])} |")
+                rows.append(("Severity", esc(e["severity"])))
             if e.get("allowable_V") is not None:
-                lines.append(f"| Allowable difference | {_num(e['allowable_V'], 2)} V{cite('allowable', 'allowable difference')} |")
+                rows.append(("Allowable difference", f"{_num(e['allowable_V'], 2)} V"
+                             + cite("allowable", "allowable difference")))
             if e.get("negligible_V") is not None:
-                own = "negligible_source" in e
-                lines.append(f"| Negligible below | {_num(e['negligible_V'], 2)} V"
-                             f"{cite('negligible' if own else 'allowable', 'negligible difference')} |")
+                prefix = "negligible" if "negligible_source" in e else "allowable"
+                rows.append(("Negligible below", f"{_num(e['negligible_V'], 2)} V" + cite(prefix, "negligible difference")))
             if e.get("temperature_range_C") is not None:
                 cit = cite("temperature_range", "temperature range") if "temperature_range_source" in e else ""
-                lines.append(f"| Temperature | {_pair_text(e['temperature_range_C'], '°C')}{cit} |")
+                rows.append(("Temperature", _pair_text(e["temperature_range_C"], "°C") + cit))
             if e.get("ionic_strength_mol_per_kg") is not None:
-                lines.append(f"| Ionic strength | {_num(e['ionic_strength_mol_per_kg'])} mol/kg"
-                             f"{cite('ionic_strength', 'ionic strength')} |")
-            cd = e.get("cathodic_current_density_uA_per_cm2")
-            if cd is not None:
-                cd_txt = _pair_text(cd, "µA/cm²") if isinstance(cd, list) else _num(cd) + " µA/cm²"
-                lines.append(f"| Cathodic current density | {cd_txt}"
-                             f"{cite('cathodic_current_density', 'cathodic current density')} |")
+                rows.append(("Ionic strength", f"{_num(e['ionic_strength_mol_per_kg'])} mol/kg"
+                             + cite("ionic_strength", "ionic strength")))
+            if e.get("resistivity_ohm_m") is not None:
+                rows.append(("Resistivity", _value_text(e["resistivity_ohm_m"], "Ω·m") + cite("resistivity", "resistivity")))
+            if e.get("atmospheric_corrosivity"):
+                rows.append(("Atmospheric corrosivity (ISO 9223)", ", ".join(esc(c) for c in e["atmospheric_corrosivity"])
+                             + cite("atmospheric_corrosivity", "corrosivity category")))
+            if "cathodic_current_density_uA_per_cm2" in e:
+                cd = e.get("cathodic_current_density_uA_per_cm2")
+                text = _value_text(cd, "µA/cm²") if cd is not None else "not screened"
+                if cd is not None:
+                    text += cite("cathodic_current_density", "cathodic current density")
+                if e.get("cathodic_current_density_note"):
+                    text += "<br>" + esc(e["cathodic_current_density_note"])
+                rows.append(("Cathodic current density", text))
+            rows += self._leftovers(e, shown, "sources.md", eid, link)
+            lines += [f"## {esc(e.get('name') or eid)} {{#{anchor}}}", "", "| Property | Value |", "|---|---|"]
+            lines += [f"| {k} | {v} |" for k, v in rows]
             lines.append("")
             if e.get("note"):
                 lines += [f"Note: {esc(e['note'])}", ""]
@@ -418,17 +472,21 @@ class _Pages:
         lines = [
             "# Ion-size parameters",
             "",
-            "Ion-size parameters å used by the extended Debye–Hückel activity model.",
+            "Ion-size parameters å used by the extended Debye–Hückel activity model. Where the table "
+            "has no value (–) the calculators fall back to a model that needs none.",
             "",
-            "| Ion | Charge | å / Å |",
-            "|---|---|---|",
+            "| Ion | Charge | å / Å | Note |",
+            "|---|---|---|---|",
         ]
         for r in recs:
             sp = r.get("species")
             anchor = "ion-" + _slug(sp, charges=True)
+            size = r.get("size_angstrom")
+            size_txt = _num(size) if size is not None else "–"
             lines.append(f"| <span id=\"{anchor}\"></span>{species_html(sp)} | {_signed(r.get('charge'))} | "
-                         f"{_num(r.get('size_angstrom'))}"
-                         f"{self.cite(r, 'size', where='sources.md', what=f'ion size of {sp}', link=f'ions.md#{anchor}')} |")
+                         f"{size_txt}"
+                         f"{self.cite(r, 'size', where='sources.md', what=f'ion size of {sp}', link=f'ions.md#{anchor}')} | "
+                         f"{esc(r.get('note'))} |")
         lines.append(self.footer("sources.md"))
         return "\n".join(lines)
 
@@ -495,6 +553,27 @@ class _Pages:
 
 def _isnum(value):
     return isinstance(value, (int, float)) and not isinstance(value, bool)
+
+
+def _prefixes(field):
+    parts = str(field).split("_")
+    return ["_".join(parts[:i]) for i in range(len(parts) - 1, 0, -1)]
+
+
+def _value_text(value, unit=""):
+    """Any data value as escaped text: numbers as written, [a, b] as a range, mappings as k v."""
+    unit = f" {unit}" if unit else ""
+    if _isnum(value):
+        return _num(value) + unit
+    if isinstance(value, list) and len(value) == 2 and all(_isnum(v) for v in value):
+        return f"{_num(value[0])} to {_num(value[1])}{unit}"
+    if isinstance(value, list):
+        return ", ".join(_value_text(v) for v in value) + unit
+    if isinstance(value, dict):
+        return ", ".join(f"{esc(k)} {_value_text(v)}" for k, v in value.items()) + unit
+    if isinstance(value, bool):
+        return "yes" if value else "no"
+    return esc(value) + unit
 
 
 def _code(text):

@@ -92,6 +92,21 @@ PKW_25C = 13.995
 #: -10.75 - 69.91 (Wagman et al., NBS tables, J. Phys. Chem. Ref. Data 11 Suppl. 2, 1982)
 DELTA_S_WATER = -10.75 - 69.91
 
+#: standard atomic weights [g/mol], abridged to 4-5 figures (IUPAC/CIAAW standard atomic weights,
+#: 2021 abridged table, from memory); used to re-compute ASTM G102 equivalent weights
+ATOMIC_WEIGHTS = {
+    "H": 1.008, "Li": 6.94, "Be": 9.0122, "B": 10.81, "C": 12.011, "N": 14.007, "O": 15.999,
+    "Na": 22.990, "Mg": 24.305, "Al": 26.982, "Si": 28.085, "P": 30.974, "S": 32.06, "K": 39.098,
+    "Ca": 40.078, "Ti": 47.867, "V": 50.942, "Cr": 51.996, "Mn": 54.938, "Fe": 55.845, "Co": 58.933,
+    "Ni": 58.693, "Cu": 63.546, "Zn": 65.38, "Ga": 69.723, "As": 74.922, "Se": 78.971, "Zr": 91.224,
+    "Nb": 92.906, "Mo": 95.95, "Ru": 101.07, "Rh": 102.91, "Pd": 106.42, "Ag": 107.87, "Cd": 112.41,
+    "In": 114.82, "Sn": 118.71, "Sb": 121.76, "Te": 127.60, "Hf": 178.49, "Ta": 180.95, "W": 183.84,
+    "Ir": 192.22, "Pt": 195.08, "Au": 196.97, "Pb": 207.2, "Bi": 208.98,
+}
+#: a computed equivalent weight may differ from its recomputation by rounding only [fraction]
+EW_WARN_FRACTION = 0.002
+EW_ERROR_FRACTION = 0.01
+
 #: the galvanic series the dataset carries, and the materials field that holds it
 SERIES_FIELDS = {"seawater-flowing": "seawater_range_V_SCE"}
 BASES = ("galvanic-series", "anodic-index")
@@ -232,8 +247,9 @@ def _leaf_errors(err):
         branches.setdefault(sub.schema_path[0] if sub.schema_path else 0, []).append(sub)
     depth = len(err.absolute_path)
 
-    def mismatched(errs):
-        return any(e.validator in ("const", "enum") and len(e.absolute_path) == depth + 1 for e in errs)
+    def mismatched(errs):  # the branch is for another kind of value (kind: linear, null, ...)
+        return any((e.validator in ("const", "enum") and len(e.absolute_path) == depth + 1)
+                   or (e.validator == "type" and len(e.absolute_path) == depth) for e in errs)
 
     candidates = [b for b in branches.values() if not mismatched(b)] or list(branches.values())
     best = min(candidates, key=len)
@@ -809,10 +825,36 @@ def _reference_electrodes(raw, out):
 
 
 # --- 9. materials ------------------------------------------------------------------------------------
+def _equivalent_weight(k, label, rec, out):
+    """A computed EW must equal ASTM G102's 1/Σ(f_i·n_i/W_i) over the elements given a valence."""
+    ew, comp, val = rec.get("equivalent_weight_g"), rec.get("composition_wt_pct"), rec.get("equivalent_weight_valences")
+    if not (_is_num(ew) and ew > 0 and isinstance(comp, dict) and isinstance(val, dict) and val):
+        return
+    total = 0.0
+    for el, n in val.items():
+        pct = comp.get(el)
+        if el not in ATOMIC_WEIGHTS or not (_is_num(pct) and _is_num(n)):
+            out.warning(k, label, f"equivalent_weight_valences.{el}", f"cannot re-compute the equivalent weight: "
+                        f"{el} needs a mass fraction in composition_wt_pct and a known atomic weight")
+            return
+        total += pct / 100.0 * n / ATOMIC_WEIGHTS[el]
+    if total <= 0:
+        return
+    recomputed = 1.0 / total
+    rel = abs(ew - recomputed) / recomputed
+    text = (f"equivalent weight {ew:g} g, but 1/Σ(f·n/W) over composition_wt_pct and equivalent_weight_valences "
+            f"gives {recomputed:.2f} g ({rel * 100:.1f} % apart; ASTM G102)")
+    if rel > EW_ERROR_FRACTION:
+        out.error(k, label, "equivalent_weight_g", text)
+    elif rel > EW_WARN_FRACTION:
+        out.warning(k, label, "equivalent_weight_g", text)
+
+
 def _materials(raw, out):
     k = "materials"
     by_id = {rec.get("id"): (label, rec) for label, rec in _each(raw, k) if isinstance(rec.get("id"), str)}
     for label, rec in _each(raw, k):
+        _equivalent_weight(k, label, rec, out)
         state, other = rec.get("state"), rec.get("other_state")
         uns = rec.get("uns")
         if isinstance(uns, list):

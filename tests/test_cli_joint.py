@@ -53,13 +53,6 @@ def test_matrix_csv():
     assert float(zinc_steel[3]) == pytest.approx(0.345, abs=0.001)
 
 
-def test_matrix_json_default_materials():
-    out = cli("matrix", "--env", "marine-atmosphere", "--json")
-    assert out.returncode == 0, out.stderr
-    r = json.loads(out.stdout)
-    assert len(r["cells"]) == len(r["materials"]) >= 20
-
-
 def test_rate_text():
     out = cli("rate", "--material", "carbon steel", "--current-density", "1")
     assert out.returncode == 0, out.stderr
@@ -68,21 +61,13 @@ def test_rate_text():
     assert float(line.split(":")[1]) == pytest.approx(0.0116, abs=0.00005)
 
 
-def test_rate_json():
-    out = cli("rate", "--material", "zinc", "--current-density", "1", "--json")
-    assert out.returncode == 0, out.stderr
-    # ASTM G102-89 (R2015): zinc 15.0 µm/y per µA/cm² (Faraday, computed; REFERENCE-DATA §6)
-    assert json.loads(out.stdout)["penetration_um_per_year"] == pytest.approx(15.0, abs=0.05)
-
-
+# each case starts an interpreter that bundles the YAML data (seconds each): the field-by-field checks of
+# bad input run in-process in test_joint.py and test_rate.py; these check the exit status and the one line
 @pytest.mark.parametrize("args,field", [
     (("joint", "steel", "nonsense", "--env", "seawater-flowing"), "a"),
     (("joint", "zinc", "copper", "--env", "seawater-flowing", "--area-ratio", "0"), "area_ratio"),
-    (("joint", "zinc", "copper", "--env", "seawater-flowing", "--area-ratio", "nan"), "area_ratio"),
-    (("joint", "zinc", "copper", "--env", "the moon"), "env"),
     (("matrix", "--env", "seawater-flowing", "--materials", "zinc,unobtainium"), "materials[1]"),
     (("rate", "--material", "graphite", "--current-density", "1"), "material"),
-    (("rate", "--material", "zinc", "--current-density", "-3"), "current_density_uA_per_cm2"),
     (("rate", "--material", "zinc", "--current-density", "abc"), "--current-density"),
 ])
 def test_bad_input_exit_2_one_line(args, field):

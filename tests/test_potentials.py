@@ -335,6 +335,11 @@ def test_nernst_function():
     ({"id": "H+/H2", "pH": 7, "activities": {"H+": 1e-7}}, "activities.H+"),
     ({"id": "Zn2+/Zn", "model": "sit"}, "model"),
     ({"id": "Zn2+/Zn", "ionic_strength": 0.1, "env": "seawater-flowing"}, "env"),
+    ({"id": "Zn2+/Zn", "env": "the moon"}, "env"),
+    ({"id": "Zn2+/Zn", "env": "indoor-controlled"}, "env"),
+    ({"id": "Zn2+/Zn", "composition": {"Na+": -1}}, "composition.Na+"),
+    ({"id": "Zn2+/Zn", "composition": [1]}, "composition"),
+    ({"id": "Zn2+/Zn", "ionic_strength": 6}, "ionic_strength"),
     ({"id": "Zn2/Zn"}, "id"),
     ({"id": 12}, "id"),
     ({}, "id"),
@@ -362,6 +367,8 @@ def test_unused_values_are_reported(shipped):
     r = electrode_entry({"id": "Zn2+/Zn", "activities": {"Zn2+": 0.1, "Cu2+": 0.1}, "pH": 7})
     fields = {w["field"] for w in r["warnings"]}
     assert "activities.Cu2+" in fields and "pH" in fields
+    r = electrode_entry({"id": "Zn2+/Zn", "activities": {"Zn2+": 0.1}, "env": "seawater-flowing"})
+    assert [w["field"] for w in r["warnings"]] == ["env"]
 
 
 @pytest.mark.parametrize("req, field", [

@@ -312,9 +312,30 @@ def test_value_out_of_physical_range(folder, fname, rid, field, value, reported,
     status, lines = check(folder)
     assert status == 1
     assert_names(lines, fname, rid, reported, *words)
-    assert len([ln for ln in lines if ln.startswith(f"{fname}:{rid}:{reported}:")]) == 1, lines
 
 
+def test_a_value_outside_schema_and_physical_bounds_is_reported_once(folder):
+    edit(folder, "half_reactions.yaml", lambda doc: record(doc, "half_reactions", "Fe3+/Fe2+").__setitem__("E0_V", 7.71))
+    status, lines = check(folder)
+    assert status == 1
+    assert len([ln for ln in lines if ln.startswith("half_reactions.yaml:Fe3+/Fe2+:E0_V:")]) == 1, lines
+
+
+def test_wrong_order_from_the_command_line(folder):
+    edit(folder, "materials.yaml", lambda doc: record(doc, "materials", "stainless-316-active")
+         .__setitem__("seawater_range_V_SCE", [-0.33, -0.46]))
+    status, lines = run_check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-active", "seawater_range_V_SCE", "wrong order",
+                 "[active end, noble end] = [-0.46, -0.33]")
+
+
+@pytest.mark.parametrize("fname,rid,field,value", [
+    ("materials.yaml", "zinc", "seawater_range_V_SCE", [-0.98, -1.03]),
+    ("half_reactions.yaml", "Zn2+/Zn", "valid_C", [100, 0]),
+    ("environments.yaml", "seawater-flowing", "temperature_range_C", [27, 10]),
+    ("environments.yaml", "seawater-flowing", "cathodic_current_density_uA_per_cm2", [20, 5]),
+])
 def test_range_ends_in_wrong_order(folder, fname, rid, field, value):
     key = FILES[fname]
     edit(folder, fname, lambda doc: record(doc, key, rid).__setitem__(field, value))

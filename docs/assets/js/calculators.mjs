@@ -595,4 +595,191 @@ async function activityCalc(root) {
   run.now(first.req, first.bad);
 }
 
-export const CALCULATORS = { couple: coupleCalc, electrode: electrodeCalc, convert: convertCalc, activity: activityCalc };
+// ---------------------------------------------------------------------------------------
+// Joint: two materials in a named environment; the decision.
+
+export const VERDICT_SYMBOL = { matched: "◎", compatible: "○", guarded: "△", unsuited: "✕" };
+
+// Demo scenario of our own: stainless hinge pins on an aluminium hatch of a workboat.
+const JOINT_DEFAULTS = { a: "aluminium-5083", b: "stainless-316-passive", env: "seawater-quiescent", ar: "0.2" };
+
+let seriesSvgText = null;
+async function seriesChart(highlight) {
+  if (seriesSvgText === null) {
+    const r = await fetch(new URL("reference/galvanic-series.svg", siteRoot));
+    seriesSvgText = r.ok ? await r.text() : "";
+  }
+  if (!seriesSvgText) return null;
+  const doc = new DOMParser().parseFromString(seriesSvgText, "image/svg+xml");
+  const svg = doc.documentElement;
+  if (svg.nodeName !== "svg") return null;
+  for (const g of svg.querySelectorAll("[data-material]")) {
+    const on = highlight.includes(g.getAttribute("data-material"));
+    g.classList.add(on ? "cw-hl" : "cw-dim");
+  }
+  svg.removeAttribute("width"); svg.removeAttribute("height");
+  svg.classList.add("cw-series-inline");
+  return document.importNode(svg, true);
+}
+
+function materialOptions(ds) {
+  const fam = new Map();
+  for (const m of ds.materials) {
+    const f = m.family || "other";
+    if (!fam.has(f)) fam.set(f, []);
+    fam.get(f).push({ value: m.id, label: m.name + (m.uns && m.uns.length ? " (" + m.uns.join(", ") + ")" : "") });
+  }
+  return [...fam.entries()].map(([group, options]) => ({ group, options }));
+}
+
+function verdictBadge(verdict) {
+  return h("span", { class: "cw-verdict cw-v-" + verdict, "data-verdict": verdict },
+    h("span", { class: "cw-v-symbol", "aria-hidden": "true", text: VERDICT_SYMBOL[verdict] || "?" }), " ", verdict);
+}
+
+async function jointCalc(root) {
+  const ui = frame(root, "Joint");
+  const ds = await dataset();
+  const params = urlState();
+  const mids = new Set(ds.materials.map((m) => m.id));
+  const eids = new Set(ds.environments.map((e) => e.id));
+  const mopts = materialOptions(ds);
+  const aField = field("cw-a", "First material", select(mopts, mids.has(params.get("a")) ? params.get("a") : JOINT_DEFAULTS.a));
+  const bField = field("cw-b", "Second material", select(mopts, mids.has(params.get("b")) ? params.get("b") : JOINT_DEFAULTS.b));
+  const envField = field("cw-env", "Environment", select(ds.environments.map((e) => ({ value: e.id, label: e.name })), eids.has(params.get("env")) ? params.get("env") : JOINT_DEFAULTS.env));
+  const arField = field("cw-ar", "Wetted area ratio, cathode : anode", numberInput(params.get("ar") ?? JOINT_DEFAULTS.ar), "greater than 0; e.g. 0.1 for a small noble fastener in a large plate, 10 for the reverse; empty for equal areas");
+  ui.formBox.append(h("div", { class: "cw-row" }, aField.el, bField.el), h("div", { class: "cw-row" }, envField.el, arField.el));
+  function collect() {
+    let bad = false;
+    const p = new URLSearchParams();
+    const req = { a: aField.control.value, b: bField.control.value, env: envField.control.value };
+    if (arField.control.value.trim() !== "") {
+      const ar = readNumber(arField.control, { positive: true, max: 1e6, allowed: "a ratio above 0 (cathode area over anode area)" });
+      arField.setError(ar.error); if (ar.error) bad = true; else req.area_ratio = ar.value;
+    } else arField.setError("");
+    p.set("a", req.a); p.set("b", req.b); p.set("env", req.env); p.set("ar", arField.control.value.trim());
+    writeUrl(p);
+    return { req, bad };
+  }
+  function fieldFor(name) {
+    if (!name) return null;
+    if (name === "a") return aField;
+    if (name === "b") return bField;
+    if (name === "env") return envField;
+    if (name.startsWith("area")) return arField;
+    return null;
+  }
+  async function render(r) {
+    const range = r.delta_E_range_V || [];
+    const rate = r.rate_mm_per_year;
+    const rows = (r.states || []).map((st) => h("tr", {},
+      h("td", { text: st.a }), h("td", { text: st.b }), h("td", { text: st.anode || "—" }),
+      h("td", { text: fmt(st.delta_E_V, 3) }), h("td", { text: (st.delta_E_range_V || []).map((v) => fmt(v, 3)).join(" to ") }), h("td", {}, verdictBadge(st.verdict))));
+    const chart = h("div", { class: "cw-series-box" });
+    fill(ui.result,
+      h("p", { class: "cw-big" }, verdictBadge(r.verdict)),
+      h("p", { class: "cw-direction", text: r.verdict_text }),
+      h("p", { class: "cw-meaning", text: "“" + r.verdict + "”: " + r.verdict_meaning }),
+      h("table", { class: "cw-compare" }, h("tbody", {},
+        h("tr", {}, h("th", { text: "Anode (attacked)" }), h("td", { text: r.anode_name || r.anode || "—" })),
+        h("tr", {}, h("th", { text: "Cathode" }), h("td", { text: r.cathode_name || r.cathode || "—" })),
+        h("tr", {}, h("th", { text: "Basis" }), h("td", {}, r.basis_description || r.basis, " ", sourceLink(r.basis_source))),
+        h("tr", {}, h("th", { text: "Potential difference ΔE, nominal" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
+        h("tr", {}, h("th", { text: "ΔE best to worst case" }), h("td", { text: range.map((v) => fmt(v, 3)).join(" to ") + " V" })),
+        h("tr", {}, h("th", { text: "Allowable ΔE in this environment" }), h("td", {}, fmt(r.allowable_V, 2) + " V ", sourceLink(r.allowable_source))),
+        h("tr", {}, h("th", { text: "Area effect" }), h("td", { text: r.area_effect || "" })),
+        h("tr", {}, h("th", { text: "Extra attack on the anode (screening)" }), h("td", { "data-cw-value": "rate_mm_per_year", text: rate ? fmt(rate[0], 3) + " to " + fmt(rate[1], 3) + " mm/year" : "not estimated: " + (r.rate_reason || "") })))),
+      warningsList(r.warnings),
+      rows.length > 1 ? h("details", { class: "cw-states", open: true }, h("summary", { text: "Passive and active states compared" }),
+        h("table", {}, h("thead", {}, h("tr", {}, ["First", "Second", "Anode", "ΔE (V)", "range (V)", "verdict"].map((t) => h("th", { text: t })))), h("tbody", {}, rows))) : null,
+      h("h3", { text: "What to do" }),
+      h("ul", { class: "cw-mitigations" }, (r.mitigations || []).map((m) => h("li", {}, h("strong", { text: m.text }), h("br"), h("span", { class: "cw-reason", text: "Why here: " + m.reason })))),
+      h("h3", { text: "Closer-matched materials" }),
+      ...(r.alternatives || []).map((alt) => h("details", { class: "cw-alts" }, h("summary", { text: alt.text + " (" + alt.count + " pass)" }),
+        h("ol", {}, alt.options.map((o) => h("li", {}, o.name + ": ΔE " + fmt(o.delta_E_V, 3) + " V, margin " + fmt(o.margin_V, 3) + " V ", verdictBadge(o.verdict)))))),
+      h("h3", { text: "Where the pair sits in the series" }), chart,
+      h("details", { class: "cw-assumptions" }, h("summary", { text: "Assumptions" }), h("ul", {}, (r.assumptions || []).map((a) => h("li", { text: a })))),
+      derivation(r.steps),
+      h("div", { class: "admonition warning" }, h("p", { class: "admonition-title", text: "Cautions" }), h("ul", {}, (r.cautions || []).map((c) => h("li", { text: c })))),
+      sourcesLine(r.sources, r.data_version));
+    const svg = await seriesChart([r.a, r.b, ...((r.states || []).flatMap((st) => [st.a, st.b]))]);
+    if (svg) chart.replaceChildren(svg);
+  }
+  const run = runner(ui, "joint", render, fieldFor);
+  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
+  ui.formBox.addEventListener("input", changed);
+  ui.formBox.addEventListener("change", changed);
+  const first = collect();
+  run.now(first.req, first.bad);
+}
+
+// ---------------------------------------------------------------------------------------
+// Matrix: every pair of a set of materials in one environment, as a heat map with numbers.
+
+// Demo scenario of our own: the metals on a harbour pontoon, in quiescent seawater.
+const MATRIX_DEFAULTS = { env: "seawater-quiescent", m: "zinc,aluminium-5083,carbon-steel,cast-iron,copper,cuni-90-10,nickel-aluminium-bronze,stainless-316-passive,stainless-316-active,titanium" };
+
+// Sequential, colour-blind-safe, monotonic in lightness (readable in grey): light = small ΔE.
+const HEAT = ["#f7fbff", "#d6e6f4", "#abd0e6", "#6aaed6", "#3787c0", "#105ba4", "#08306b"];
+
+async function matrixCalc(root) {
+  const ui = frame(root, "Matrix");
+  const ds = await dataset();
+  const params = urlState();
+  const eids = new Set(ds.environments.map((e) => e.id));
+  const envField = field("cw-env", "Environment", select(ds.environments.map((e) => ({ value: e.id, label: e.name })), eids.has(params.get("env")) ? params.get("env") : MATRIX_DEFAULTS.env));
+  const listBox = h("select", { multiple: true, size: "10" });
+  for (const g of materialOptions(ds)) {
+    const og = h("optgroup", { label: g.group });
+    for (const o of g.options) og.append(h("option", { value: o.value, text: o.label }));
+    listBox.append(og);
+  }
+  const chosen = new Set((params.get("m") ?? MATRIX_DEFAULTS.m).split(",").filter(Boolean));
+  for (const o of listBox.options) o.selected = chosen.has(o.value);
+  const mField = field("cw-m", "Materials (select several; none = all with data)", listBox);
+  const csvLink = h("a", { class: "md-button", download: "couplewise-matrix.csv", text: "Download CSV" });
+  ui.formBox.append(h("div", { class: "cw-row" }, envField.el, mField.el), csvLink);
+  function collect() {
+    const sel = [...listBox.selectedOptions].map((o) => o.value);
+    const req = { env: envField.control.value };
+    if (sel.length) req.materials = sel;
+    const p = new URLSearchParams();
+    p.set("env", req.env); p.set("m", sel.join(","));
+    writeUrl(p);
+    return { req, bad: false };
+  }
+  function fieldFor(name) {
+    if (name === "env") return envField;
+    if (name && name.startsWith("materials")) return mField;
+    return null;
+  }
+  function render(r) {
+    const names = new Map(ds.materials.map((m) => [m.id, m.name]));
+    const max = Math.max(0.01, ...r.cells.flat().map((c) => (c && c.delta_E_V) || 0));
+    const table = h("table", { class: "cw-matrix" });
+    table.append(h("thead", {}, h("tr", {}, h("th", { text: "ΔE (V)" }), r.materials.map((id, j) => h("th", { scope: "col", title: names.get(id) || id }, h("span", { text: String(j + 1) + ". " + id }))))));
+    const body = h("tbody");
+    r.materials.forEach((id, i) => {
+      const tr = h("tr", {}, h("th", { scope: "row", text: String(i + 1) + ". " + (names.get(id) || id) }));
+      r.cells[i].forEach((c, j) => {
+        if (!c || i === j) { tr.append(h("td", { class: "cw-diag", text: "—" })); return; }
+        const k = Math.min(HEAT.length - 1, Math.floor((c.delta_E_V / max) * (HEAT.length - 1) + 1e-9));
+        tr.append(h("td", { class: "cw-cell cw-v-" + c.verdict, style: "background:" + HEAT[k] + ";color:" + (k >= 4 ? "#fff" : "#000"), title: (c.anode ? "anode: " + c.anode + "; " : "") + c.verdict },
+          fmt(c.delta_E_V, 2), h("span", { class: "cw-v-symbol", "aria-label": c.verdict, text: " " + (VERDICT_SYMBOL[c.verdict] || "") })));
+      });
+      body.append(tr);
+    });
+    table.append(body);
+    const legend = h("p", { class: "cw-legend" }, "Cells: ΔE in volts (darker = larger), with the verdict symbol: ",
+      ...Object.entries(VERDICT_SYMBOL).map(([v, sym]) => h("span", { class: "cw-legend-item", text: sym + " " + v + "  " })));
+    csvLink.href = "data:text/csv;charset=utf-8," + encodeURIComponent(r.csv || "");
+    fill(ui.result, legend, h("div", { class: "cw-matrix-wrap" }, table), warningsList(r.warnings), derivation(r.steps), sourcesLine(r.sources, r.data_version));
+  }
+  const run = runner(ui, "matrix", render, fieldFor);
+  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
+  ui.formBox.addEventListener("change", changed);
+  const first = collect();
+  run.now(first.req, first.bad);
+}
+
+export const CALCULATORS = { couple: coupleCalc, electrode: electrodeCalc, convert: convertCalc, activity: activityCalc, joint: jointCalc, matrix: matrixCalc };
