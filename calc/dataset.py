@@ -67,9 +67,15 @@ class Dataset:
         if rec is None:
             ids = [r.get("id") or r.get("species") for r in self.bundle.get(kind, [])]
             close = difflib.get_close_matches(name, ids, n=3, cutoff=0.4)
-            if not close:
-                close = difflib.get_close_matches(_norm(name), [_norm(i) for i in ids], n=3, cutoff=0.4)
-                close = [i for i in ids if _norm(i) in close]
+            if not close:  # try aliases and UNS numbers too, and report the record ids they belong to
+                keys = list(self._index[kind])
+                near = difflib.get_close_matches(_norm(name), keys, n=6, cutoff=0.4)
+                close = []
+                for k in near:
+                    rid = self._index[kind][k].get("id") or self._index[kind][k].get("species")
+                    if rid not in close:
+                        close.append(rid)
+                close = close[:3]
             hint = ("closest: " + ", ".join(close)) if close else "see the reference pages for the list"
             raise InputError(field, name, f"a known {kind.replace('_', ' ')[:-1]} id", hint)
         return rec
@@ -99,7 +105,11 @@ def current():
         with open(shipped, encoding="utf-8") as fh:
             return set_dataset(json.load(fh))
     try:
-        from sitebuild.dataset import load_project_bundle  # build-time tools, CPython only
+        from sitebuild.dataset import DataProblems, load_project_bundle  # build-time tools, CPython only
     except ImportError as exc:  # pragma: no cover - only without the project checkout
         raise DataError("no dataset.json beside calc and no project data/ to bundle") from exc
-    return set_dataset(load_project_bundle())
+    try:
+        return set_dataset(load_project_bundle())
+    except DataProblems as exc:
+        raise DataError(f"the project's data has {len(exc.problems)} problem(s); run 'couplewise data check': "
+                        + exc.problems[0]) from None

@@ -24,14 +24,14 @@ SERIES_FIELD = "seawater_range_V_SCE"
 
 # layout [px in the viewBox]
 WIDTH = 960
-LABEL_RIGHT = 330      # labels end here (right-aligned)
-PLOT_LEFT = 342
-PLOT_RIGHT = 930
+LABEL_RIGHT = 362      # labels end here (right-aligned)
+PLOT_LEFT = 374
+PLOT_RIGHT = 936
 ROW_H = 20
 BAR_H = 12
 TOP = 96               # first row
 FONT = "system-ui, -apple-system, 'Segoe UI', Roboto, Helvetica, Arial, sans-serif"
-MAX_LABEL = 50
+MAX_LABEL = 56
 
 # our own palette: dark slate for single-state alloys, pale with heavy outline for passive
 # states, hatching with a dashed outline for active states
@@ -158,8 +158,9 @@ def galvanic_series_svg(bundle, highlight=()):
         major = abs(v) < 1e-9
         out.append(f'<line x1="{x:.1f}" y1="{TOP - 4}" x2="{x:.1f}" y2="{plot_bottom + 4}" stroke="#8c99a4" '
                    f'stroke-width="{1.2 if major else 0.5}"' + ('' if major else ' stroke-dasharray="2 3"') + '/>')
-        for ty in (TOP - 8, plot_bottom + 18):
-            out.append(f'<text x="{x:.1f}" y="{ty}" text-anchor="middle" font-size="11" fill="{INK}">{_v(v)}</text>')
+        if int(round(v * 10)) % 2 == 0:  # grid every 0.1 V, labels every 0.2 V
+            for ty in (TOP - 8, plot_bottom + 18):
+                out.append(f'<text x="{x:.1f}" y="{ty}" text-anchor="middle" font-size="11" fill="{INK}">{_v(v)}</text>')
     out.append(f'<line x1="{PLOT_LEFT}" y1="{plot_bottom + 4}" x2="{PLOT_RIGHT}" y2="{plot_bottom + 4}" '
                f'stroke="{INK}" stroke-width="1"/>')
     # bars and labels
@@ -194,9 +195,9 @@ def galvanic_series_svg(bundle, highlight=()):
         "potential, V vs SCE</text>",
     ]
     notes = [
-        "Ranges after the seawater galvanic series of ASTM G82 (after LaQue); the dataset's sources give each value.",
-        "Stainless steels and nickel-chromium alloys can turn active in crevices and in stagnant or poorly",
-        "aerated water. A galvanic series holds only for the electrolyte it was measured in.",
+        "Ranges after the seawater galvanic series of ASTM G82 (after LaQue); the reference pages give each value's source.",
+        "Stainless steels and nickel-chromium alloys can turn active in crevices and in stagnant or poorly aerated water.",
+        "A galvanic series holds only for the electrolyte it was measured in. Gridlines every 0.1 V.",
     ]
     if version:
         notes.append(f"Couplewise data version {version}.")

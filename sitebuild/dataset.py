@@ -80,6 +80,46 @@ def load_bundle(data_dir):
     return bundle_from_raw(raw)
 
 
-def load_project_bundle(data_dir=None):
-    """The validated bundle of the project's own data/ (or another folder)."""
-    return load_bundle(data_dir or PROJECT_DATA)
+CACHE_DIR = os.path.join(os.path.dirname(HERE), ".cache")
+
+
+def _files_digest(data_dir):
+    h = hashlib.sha256()
+    for fname in sorted(FILES):
+        path = os.path.join(data_dir, fname)
+        h.update(fname.encode() + b"\0")
+        if os.path.exists(path):
+            with open(path, "rb") as fh:
+                h.update(hashlib.sha256(fh.read()).digest())
+    for name in sorted(os.listdir(os.path.join(data_dir, "schema"))) if os.path.isdir(os.path.join(data_dir, "schema")) else []:
+        with open(os.path.join(data_dir, "schema", name), "rb") as fh:
+            h.update(name.encode() + hashlib.sha256(fh.read()).digest())
+    return h.hexdigest()[:20]
+
+
+def load_project_bundle(data_dir=None, use_cache=True):
+    """The validated bundle of the project's own data/ (or another folder).
+
+    A bundle that passed validation is cached in .cache/ under a hash of the data and schema
+    files' bytes, so the command line starts fast; any edit to the data makes a new hash and a
+    full validation.
+    """
+    data_dir = data_dir or PROJECT_DATA
+    cache = os.path.join(CACHE_DIR, f"dataset-{_files_digest(data_dir)}.json") if use_cache else None
+    if cache and os.path.exists(cache):
+        try:
+            with open(cache, encoding="utf-8") as fh:
+                return json.load(fh)
+        except (OSError, ValueError):
+            pass
+    bundle = load_bundle(data_dir)
+    if cache:
+        try:
+            os.makedirs(CACHE_DIR, exist_ok=True)
+            tmp = cache + ".tmp"
+            with open(tmp, "w", encoding="utf-8") as fh:
+                json.dump(bundle, fh, ensure_ascii=False)
+            os.replace(tmp, cache)
+        except OSError:
+            pass  # a read-only checkout still works, only slower
+    return bundle

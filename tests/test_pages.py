@@ -1,0 +1,366 @@
+"""Generated reference pages and the galvanic-series chart.
+
+Every record has its page or row, every value links to an anchor that exists on the bibliography
+page, values recalled rather than read carry the recalled badge, and data text is rendered as
+text: a hostile note shows literally and never becomes HTML.
+"""
+
+import copy
+import html
+import html.parser
+import json
+import os
+import posixpath
+import re
+import subprocess
+import sys
+import xml.etree.ElementTree as ET
+
+import markdown
+import pytest
+
+from sitebuild import charts, pages
+from sitebuild.dataset import bundle_from_raw, load_project_bundle, read_folder
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+MINIMAL = os.path.join(ROOT, "tests", "fixtures", "minimal")
+SVG_NS = "{http://www.w3.org/2000/svg}"
+HOSTILE = '<script>alert("x")</script> *bold* _it_ | pipe [link](http://example.invalid) {#id} `code` # &amp;'
+#: the Markdown extensions of mkdocs.yml (the pages must render with these)
+EXTENSIONS = ["admonition", "attr_list", "md_in_html", "tables", "toc"]
+
+
+def minimal_bundle():
+    raw, problems = read_folder(MINIMAL)
+    assert problems == []
+    return bundle_from_raw(copy.deepcopy(raw))
+
+
+@pytest.fixture(scope="module")
+def shipped():
+    return load_project_bundle()
+
+
+@pytest.fixture(scope="module", params=["minimal", "shipped"])
+def bundle(request):
+    return minimal_bundle() if request.param == "minimal" else load_project_bundle()
+
+
+def body(text):
+    """A page without its front matter."""
+    if text.startswith("---\n"):
+        return text.split("\n---\n", 1)[1]
+    return text
+
+
+def anchors_of(text):
+    ids = set(re.findall(r'\bid="([^"]+)"', text))
+    ids |= set(re.findall(r"\{#([A-Za-z0-9_-]+)\}", text))
+    return ids
+
+
+def links_of(text):
+    return re.findall(r"\]\(([^)\s]+)\)", body(text))
+
+
+# --- every record has its page or row ----------------------------------------------------------------
+def test_page_set(bundle):
+    out = pages.generate_pages(bundle)
+    for path in ("reference/series.md", "reference/materials/index.md", "reference/electrodes.md",
+                 "reference/environments.md", "reference/sources.md", "reference/galvanic-series.md",
+                 "reference/ions.md"):
+        assert path in out, path
+    for m in bundle["materials"]:
+        page = out[f"reference/materials/{pages.material_file(m['id'])}"]
+        assert pages.esc(m["name"]) in page
+        for u in m.get("uns") or []:
+            assert u in page.split("\n")[1]  # the title carries the UNS numbers (search finds them)
+        assert f"]({pages.material_file(m['id'])})" in out["reference/materials/index.md"]
+    assert len([p for p in out if p.startswith("reference/materials/")]) == len(bundle["materials"]) + 1
+
+
+def test_every_record_has_a_row(bundle):
+    out = pages.generate_pages(bundle)
+    series = out["reference/series.md"]
+    for hr in bundle["half_reactions"]:
+        row = [ln for ln in series.splitlines() if f'id="{pages.couple_anchor(hr["id"])}"' in ln]
+        assert len(row) == 1 and f"**{pages.esc(hr['id'])}**" in row[0], hr["id"]
+    for r in bundle["reference_electrodes"]:
+        assert f'id="{pages.electrode_anchor(r["id"])}"' in out["reference/electrodes.md"], r["id"]
+    for e in bundle["environments"]:
+        assert "{#" + pages.environment_anchor(e["id"]) + "}" in out["reference/environments.md"], e["id"]
+    for s in bundle["sources"]:
+        assert "{#" + pages.source_anchor(s["id"]) + "}" in out["reference/sources.md"], s["id"]
+    assert len(re.findall(r'id="ion-', out["reference/ions.md"])) == len(bundle["ions"])
+    gs = out["reference/galvanic-series.md"]
+    with_range = [m for m in bundle["materials"] if m.get("seawater_range_V_SCE")]
+    assert all(f"materials/{pages.material_file(m['id'])}" in gs for m in with_range)
+
+
+def test_anchors_are_unique(bundle):
+    out = pages.generate_pages(bundle)
+    for path, text in out.items():
+        ids = re.findall(r'\bid="([^"]+)"', text) + re.findall(r"\{#([A-Za-z0-9_-]+)\}", text)
+        assert len(ids) == len(set(ids)), (path, sorted(i for i in ids if ids.count(i) > 1))
+
+
+def test_series_is_sorted_by_potential(bundle):
+    series = pages.generate_pages(bundle)["reference/series.md"]
+    order = re.findall(r'<span id="(hr-[^"]+)"></span>', series)
+    expected = [pages.couple_anchor(h["id"]) for h in
+                sorted(bundle["half_reactions"], key=lambda h: (-h["E0_V"], h["id"]))]
+    assert order == expected
+
+
+# --- links and sources --------------------------------------------------------------------------------
+def test_every_link_resolves(bundle):
+    """Relative links point at generated pages (or the chart) and at anchors that exist there."""
+    out = pages.generate_pages(bundle)
+    extra_files = {charts.CHART_PATH}
+    for path, text in out.items():
+        for link in links_of(text):
+            if link.startswith(("http:", "https:", "mailto:")):
+                continue
+            target, _, anchor = link.partition("#")
+            resolved = posixpath.normpath(posixpath.join(posixpath.dirname(path), target)) if target else path
+            assert resolved in out or resolved in extra_files, (path, link)
+            if anchor:
+                assert anchor in anchors_of(out[resolved]), (path, link)
+
+
+def test_every_value_links_its_source(bundle):
+    out = pages.generate_pages(bundle)
+    series = out["reference/series.md"]
+    for hr in bundle["half_reactions"]:
+        row = next(ln for ln in series.splitlines() if f'id="{pages.couple_anchor(hr["id"])}"' in ln)
+        assert f"sources.md#{pages.source_anchor(hr['E0_source'])}" in row, hr["id"]
+        if hr.get("dEdT_mV_per_K") is not None:
+            assert f"sources.md#{pages.source_anchor(hr['dEdT_source'])}" in row, hr["id"]
+    for m in bundle["materials"]:
+        page = out[f"reference/materials/{pages.material_file(m['id'])}"]
+        for prefix, label in (("seawater", "Flowing seawater range"), ("density", "Density"),
+                              ("anodic_index", "Anodic index"), ("equivalent_weight", "Equivalent weight")):
+            if m.get(f"{prefix}_source") is None:
+                continue
+            row = next(ln for ln in page.splitlines() if ln.startswith(f"| {label}"))
+            assert f"../sources.md#{pages.source_anchor(m[prefix + '_source'])}" in row, (m["id"], prefix)
+    electrodes = out["reference/electrodes.md"]
+    for r in bundle["reference_electrodes"]:
+        row = next(ln for ln in electrodes.splitlines() if f'id="{pages.electrode_anchor(r["id"])}"' in ln)
+        assert f"sources.md#{pages.source_anchor(r['source'])}" in row
+        assert f"sources.md#{pages.source_anchor(r['temperature']['source'])}" in row
+    envs = out["reference/environments.md"]
+    for e in bundle["environments"]:
+        assert f"sources.md#{pages.source_anchor(e['allowable_source'])}" in envs
+
+
+def test_sources_page_lists_what_each_source_is_cited_for():
+    out = pages.generate_pages(minimal_bundle())
+    src = out["reference/sources.md"]
+    section = src.split("{#src-bratsch-1989}", 1)[1].split("\n## ", 1)[0]
+    # the fixture cites Bratsch (1989) for E° of Fe2+/Fe only
+    assert "Cited for: [E° of Fe2+/Fe](series.md#hr-fe2p-fe)." in section
+
+
+def test_recalled_values_carry_the_badge():
+    out = pages.generate_pages(minimal_bundle())
+    series = out["reference/series.md"]
+    row = {h: next(ln for ln in series.splitlines() if f'id="{pages.couple_anchor(h)}"' in ln)
+           for h in ("Fe2+/Fe", "Zn2+/Zn")}
+    assert pages.RECALLED in row["Fe2+/Fe"]  # E0_confidence: recalled in the fixture
+    assert pages.RECALLED not in row["Zn2+/Zn"]  # E0_confidence: read
+    zinc = out["reference/materials/zinc.md"]
+    seawater = next(ln for ln in zinc.splitlines() if ln.startswith("| Flowing seawater range"))
+    density = next(ln for ln in zinc.splitlines() if ln.startswith("| Density"))
+    assert pages.RECALLED not in seawater and pages.RECALLED in density
+    # the badge is defined once and explained on every page
+    assert all(pages.RECALLED in text for text in out.values())
+
+
+def test_recalled_badges_in_the_shipped_data(shipped):
+    out = pages.generate_pages(shipped)
+    series = out["reference/series.md"]
+    for hr in shipped["half_reactions"]:
+        row = next(ln for ln in series.splitlines() if f'id="{pages.couple_anchor(hr["id"])}"' in ln)
+        e0_cell = row.split(" | ")[3]
+        assert (pages.RECALLED in e0_cell) == (hr["E0_confidence"] == "recalled"), hr["id"]
+        if hr.get("hypothetical"):
+            assert pages.HYPOTHETICAL in row
+
+
+def test_titles_carry_names_uns_and_couple_ids(shipped):
+    out = pages.generate_pages(shipped)
+    for m in shipped["materials"]:
+        text = out[f"reference/materials/{pages.material_file(m['id'])}"]
+        title = json.loads(re.search(r'^title: (".*")$', text, re.M).group(1))
+        assert title.startswith(m["name"].translate(pages._TITLE_SAFE))
+        for u in m.get("uns") or []:
+            assert u in title
+    assert all(h["id"] in out["reference/series.md"] or pages.esc(h["id"]) in out["reference/series.md"]
+               for h in shipped["half_reactions"])
+
+
+# --- escaping -------------------------------------------------------------------------------------------
+class _Text(html.parser.HTMLParser):
+    def __init__(self):
+        super().__init__()
+        self.tags, self.text = [], []
+
+    def handle_starttag(self, tag, attrs):
+        self.tags.append(tag)
+
+    def handle_data(self, data):
+        self.text.append(data)
+
+
+def hostile_bundle():
+    raw, _ = read_folder(MINIMAL)
+    raw = copy.deepcopy(raw)
+    raw["materials"][2]["note"] = HOSTILE
+    raw["materials"][2]["name"] = "Zinc </title><script>alert(1)</script>"
+    raw["half_reactions"][0]["note"] = HOSTILE
+    raw["half_reactions"][0]["spread"] = "<img src=x onerror=alert(2)>"
+    raw["environments"][0]["name"] = "Sea </a><script>alert(3)</script>"
+    raw["sources"][0]["title"] = HOSTILE
+    raw["reference_electrodes"][1]["note"] = HOSTILE
+    raw["ions"][0]["note"] = HOSTILE
+    return bundle_from_raw(raw)
+
+
+def test_hostile_text_renders_literally():
+    out = pages.generate_pages(hostile_bundle())
+    for path, text in out.items():
+        rendered = markdown.markdown(body(text), extensions=EXTENSIONS)
+        parser = _Text()
+        parser.feed(rendered)
+        assert "script" not in parser.tags and "img" not in parser.tags, path
+        shown = "".join(parser.text)
+        if HOSTILE.split()[0] in html.unescape(text):
+            # the whole string shows as text, Markdown characters included
+            assert HOSTILE in re.sub(r"\s+", " ", shown), path
+    zinc = out["reference/materials/zinc.md"]
+    title = re.search(r"^title: (.*)$", zinc, re.M).group(1)
+    assert "<" not in title and ">" not in title
+
+
+def test_hostile_text_in_a_material_build():
+    """Build the generated pages with mkdocs and the Material theme: no script from the data."""
+    import shutil
+    import tempfile
+
+    out = pages.generate_pages(hostile_bundle())
+    with tempfile.TemporaryDirectory() as tmp:
+        docs = os.path.join(tmp, "docs")
+        for path, text in out.items():
+            full = os.path.join(docs, path)
+            os.makedirs(os.path.dirname(full), exist_ok=True)
+            with open(full, "w", encoding="utf-8") as fh:
+                fh.write(text)
+        with open(os.path.join(docs, charts.CHART_PATH), "w", encoding="utf-8") as fh:
+            fh.write(charts.galvanic_series_svg(hostile_bundle()))
+        with open(os.path.join(docs, "index.md"), "w", encoding="utf-8") as fh:
+            fh.write("# Home\n")
+        with open(os.path.join(tmp, "mkdocs.yml"), "w", encoding="utf-8") as fh:
+            fh.write("site_name: t\nuse_directory_urls: true\ntheme:\n  name: material\n  font: false\n"
+                     "plugins: []\nvalidation:\n  anchors: warn\nmarkdown_extensions:\n"
+                     + "".join(f"  - {e}\n" for e in EXTENSIONS))
+        mkdocs = os.path.join(os.path.dirname(sys.executable), "mkdocs")
+        proc = subprocess.run([mkdocs, "build", "--strict", "-q"], cwd=tmp, capture_output=True, text=True,
+                              timeout=300, env={**os.environ, "NO_MKDOCS_2_WARNING": "1"})
+        assert proc.returncode == 0, proc.stderr[-3000:]
+        site = os.path.join(tmp, "site", "reference")
+        for folder, _, names in os.walk(site):
+            for name in names:
+                if name.endswith(".html"):
+                    with open(os.path.join(folder, name), encoding="utf-8") as fh:
+                        page = fh.read()
+                    assert "<script>alert" not in page and "<img src=x" not in page, name
+        shutil.rmtree(os.path.join(tmp, "site"))
+
+
+def test_esc_covers_markdown_and_html():
+    for ch in "<>&*_`[]|#\\{}~^=:$\"'":
+        assert ch not in pages.esc(ch), ch
+    assert pages.esc("a\nb\tc") == "a b c"
+    assert pages.esc(None) == ""
+
+
+# --- the chart --------------------------------------------------------------------------------------------
+def parse_svg(text):
+    return ET.fromstring(text)
+
+
+def test_chart_is_valid_svg_with_title_and_desc(bundle):
+    svg = charts.galvanic_series_svg(bundle)
+    root = parse_svg(svg)
+    assert root.tag == SVG_NS + "svg"
+    assert re.match(r"^0 0 \d+ \d+$", root.get("viewBox"))
+    assert root.get("role") == "img" and root.get("aria-labelledby")
+    title, desc = root.find(SVG_NS + "title"), root.find(SVG_NS + "desc")
+    assert title is not None and "Galvanic series" in title.text
+    assert desc is not None and "2.4 to 4 m/s" in desc.text and "10 to 27 °C" in desc.text
+    texts = " ".join("".join(t.itertext()) for t in root.iter(SVG_NS + "text"))
+    assert "V vs SCE" in texts
+    for m in bundle["materials"]:
+        if m.get("seawater_range_V_SCE"):
+            assert charts._short(m["name"]) in texts, m["name"]
+
+
+def test_chart_bars_and_order(bundle):
+    root = parse_svg(charts.galvanic_series_svg(bundle))
+    bars = [g for g in root.iter(SVG_NS + "g") if g.get("class") == "cw-bar"]
+    with_range = [m for m in bundle["materials"] if m.get("seawater_range_V_SCE")]
+    assert len(bars) == len(with_range)
+    # noble at the top: the noble ends never rise going down the rows
+    ys, nobles = [], []
+    for g in bars:
+        rect = g.find(SVG_NS + "rect")
+        ys.append(float(rect.get("y")))
+        nobles.append(float(rect.get("x")) + float(rect.get("width")))
+    assert ys == sorted(ys) and all(a >= b - 3.01 for a, b in zip(nobles, nobles[1:]))
+    # states differ by pattern and outline, not by colour alone
+    by_state = {}
+    for g, m in zip(bars, sorted(with_range, key=lambda m: (-max(m["seawater_range_V_SCE"]),
+                                                            -min(m["seawater_range_V_SCE"]), m["name"]))):
+        rect = g.find(SVG_NS + "rect")
+        by_state.setdefault(m.get("state"), set()).add((rect.get("fill"), rect.get("stroke-dasharray"),
+                                                        rect.get("stroke-width")))
+        assert m["name"] in g.find(SVG_NS + "title").text
+    if "active" in by_state:
+        assert all(fill == "url(#cwgs-hatch)" and dash for fill, dash, _ in by_state["active"])
+    if "passive" in by_state and None in by_state:
+        assert by_state["passive"].isdisjoint(by_state[None])
+
+
+def test_chart_axis_ticks_every_tenth_of_a_volt(shipped):
+    svg = charts.galvanic_series_svg(shipped)
+    root = parse_svg(svg)
+    grid = [ln for ln in root.iter(SVG_NS + "line") if ln.get("y1") != ln.get("y2")]
+    xs = sorted(float(ln.get("x1")) for ln in grid)
+    steps = {round(b - a, 1) for a, b in zip(xs, xs[1:])}
+    assert len(steps) == 1  # evenly spaced
+    lows = [m["seawater_range_V_SCE"][0] for m in shipped["materials"] if m.get("seawater_range_V_SCE")]
+    highs = [m["seawater_range_V_SCE"][1] for m in shipped["materials"] if m.get("seawater_range_V_SCE")]
+    span = (round(max(highs) + 0.0499, 1) - round(min(lows) - 0.0499, 1))
+    assert len(grid) == round(span / 0.1) + 1
+    labels = ["".join(t.itertext()) for t in root.iter(SVG_NS + "text")]
+    assert "0.0" in labels and "\u22121.0" in labels
+
+
+def test_chart_highlight_and_escaping():
+    bundle = hostile_bundle()
+    svg = charts.galvanic_series_svg(bundle, highlight=["zinc", "stainless-316-passive"])
+    root = parse_svg(svg)  # parses: the hostile name is escaped
+    bold = ["".join(t.itertext()) for t in root.iter(SVG_NS + "text") if t.get("font-weight") == "700"
+            and t.get("text-anchor") == "end"]
+    assert any(b.startswith("Zinc </title><script>") for b in bold)
+    assert any("316/317 (passive)" in b for b in bold)
+    assert not any(el.tag == SVG_NS + "script" for el in root.iter())
+    dimmed = [g for g in root.iter(SVG_NS + "g") if g.get("opacity")]
+    assert len(dimmed) == 1  # the third material, stainless 316 active
+    assert "Highlighted:" in root.find(SVG_NS + "desc").text
+
+
+def test_chart_without_materials():
+    root = parse_svg(charts.galvanic_series_svg({"materials": []}))
+    assert "no material" in " ".join("".join(t.itertext()) for t in root.iter(SVG_NS + "text"))
