@@ -241,7 +241,17 @@ def main(argv=None):
 
 
 def run():  # console-script entry
-    sys.exit(main())
+    try:
+        code = main()
+        sys.stdout.flush()
+    except BrokenPipeError:  # output piped into e.g. head, which closed early
+        import os
+
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+        code = 0
+    except KeyboardInterrupt:
+        code = 130
+    sys.exit(code)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -94,8 +94,9 @@ def galvanic_series_svg(bundle, highlight=()):
     highlight = {h for h in (highlight or ()) if isinstance(h, str)}
     rows = _rows(bundle)
     if rows:
-        vmin = math.floor(min(r[1] for r in rows) * 10 - 1e-9) / 10
-        vmax = math.ceil(max(r[2] for r in rows) * 10 + 1e-9) / 10
+        # axis ends on labelled gridlines (labels every 0.2 V)
+        vmin = math.floor(min(r[1] for r in rows) * 5 + 1e-9) / 5
+        vmax = math.ceil(max(r[2] for r in rows) * 5 - 1e-9) / 5
     else:
         vmin, vmax = -1.0, 0.0
     if vmax - vmin < 0.2:
@@ -156,11 +157,13 @@ def galvanic_series_svg(bundle, highlight=()):
         v = vmin + k / 10
         x = px(v)
         major = abs(v) < 1e-9
-        out.append(f'<line x1="{x:.1f}" y1="{TOP - 4}" x2="{x:.1f}" y2="{plot_bottom + 4}" stroke="#8c99a4" '
+        out.append(f'<line class="cw-gs-grid" x1="{x:.1f}" y1="{TOP - 4}" x2="{x:.1f}" y2="{plot_bottom + 4}" '
+                   'stroke="#8c99a4" '
                    f'stroke-width="{1.2 if major else 0.5}"' + ('' if major else ' stroke-dasharray="2 3"') + '/>')
-        if int(round(v * 10)) % 2 == 0:  # grid every 0.1 V, labels every 0.2 V
+        if k % 2 == 0:  # grid every 0.1 V, labels every 0.2 V from the axis ends
             for ty in (TOP - 8, plot_bottom + 18):
-                out.append(f'<text x="{x:.1f}" y="{ty}" text-anchor="middle" font-size="11" fill="{INK}">{_v(v)}</text>')
+                out.append(f'<text x="{x:.1f}" y="{ty}" text-anchor="middle" font-size="11" fill="{INK}">'
+                           f'{_v(v)}</text>')
     out.append(f'<line x1="{PLOT_LEFT}" y1="{plot_bottom + 4}" x2="{PLOT_RIGHT}" y2="{plot_bottom + 4}" '
                f'stroke="{INK}" stroke-width="1"/>')
     # bars and labels
@@ -180,7 +183,8 @@ def galvanic_series_svg(bundle, highlight=()):
             style = f'fill="{PLAIN_FILL}" stroke="{INK}" stroke-width="{2.2 if hl else 0.8}"'
         tip = f"{name}: {_v(lo)} to {_v(hi)} V vs SCE" + (f" ({state})" if state else "")
         out.append(f'<g class="cw-bar"{dim}><title>{_x(tip)}</title>'
-                   f'<rect x="{x0:.1f}" y="{y + (ROW_H - BAR_H) / 2:.1f}" width="{w:.1f}" height="{BAR_H}" {style}/></g>')
+                   f'<rect x="{x0:.1f}" y="{y + (ROW_H - BAR_H) / 2:.1f}" width="{w:.1f}" height="{BAR_H}" '
+                   f'{style}/></g>')
         weight = ' font-weight="700"' if hl else ""
         out.append(f'<text x="{LABEL_RIGHT}" y="{y + ROW_H / 2 + 4:.1f}" text-anchor="end" fill="{INK}"{weight}{dim}>'
                    f'{_x(_short(name))}</text>')
@@ -195,8 +199,10 @@ def galvanic_series_svg(bundle, highlight=()):
         "potential, V vs SCE</text>",
     ]
     notes = [
-        "Ranges after the seawater galvanic series of ASTM G82 (after LaQue); the reference pages give each value's source.",
-        "Stainless steels and nickel-chromium alloys can turn active in crevices and in stagnant or poorly aerated water.",
+        "Ranges after the seawater galvanic series of ASTM G82 (after LaQue); "
+        "the reference pages give each value's source.",
+        "Stainless steels and nickel-chromium alloys can turn active in crevices "
+        "and in stagnant or poorly aerated water.",
         "A galvanic series holds only for the electrolyte it was measured in. Gridlines every 0.1 V.",
     ]
     if version:

@@ -18,7 +18,7 @@ import re
 from calc.errors import InputError
 from calc.species import parse_species
 
-from .charts import CHART_PATH, SERIES_NOTE, galvanic_series_svg  # noqa: F401  (re-exported for the hook)
+from .charts import CHART_PATH, SERIES_NOTE
 
 #: the badge on a value recalled from its source and not re-read (defined once, used everywhere)
 RECALLED = ('<abbr class="cw-recalled" title="recalled: this value was not re-read in the cited source; '
@@ -438,17 +438,20 @@ class _Pages:
                              + cite("allowable", "allowable difference")))
             if e.get("negligible_V") is not None:
                 prefix = "negligible" if "negligible_source" in e else "allowable"
-                rows.append(("Negligible below", f"{_num(e['negligible_V'], 2)} V" + cite(prefix, "negligible difference")))
+                rows.append(("Negligible below", f"{_num(e['negligible_V'], 2)} V"
+                             + cite(prefix, "negligible difference")))
             if e.get("temperature_range_C") is not None:
                 cit = cite("temperature_range", "temperature range") if "temperature_range_source" in e else ""
-                rows.append(("Temperature", _pair_text(e["temperature_range_C"], "°C") + cit))
+                rows.append(("Temperature", _value_text(e["temperature_range_C"], "°C") + cit))
             if e.get("ionic_strength_mol_per_kg") is not None:
                 rows.append(("Ionic strength", f"{_num(e['ionic_strength_mol_per_kg'])} mol/kg"
                              + cite("ionic_strength", "ionic strength")))
             if e.get("resistivity_ohm_m") is not None:
-                rows.append(("Resistivity", _value_text(e["resistivity_ohm_m"], "Ω·m") + cite("resistivity", "resistivity")))
+                rows.append(("Resistivity", _value_text(e["resistivity_ohm_m"], "Ω·m")
+                             + cite("resistivity", "resistivity")))
             if e.get("atmospheric_corrosivity"):
-                rows.append(("Atmospheric corrosivity (ISO 9223)", ", ".join(esc(c) for c in e["atmospheric_corrosivity"])
+                rows.append(("Atmospheric corrosivity (ISO 9223)",
+                             ", ".join(esc(c) for c in e["atmospheric_corrosivity"])
                              + cite("atmospheric_corrosivity", "corrosivity category")))
             if "cathodic_current_density_uA_per_cm2" in e:
                 cd = e.get("cathodic_current_density_uA_per_cm2")
@@ -485,7 +488,8 @@ class _Pages:
             size_txt = _num(size) if size is not None else "–"
             lines.append(f"| <span id=\"{anchor}\"></span>{species_html(sp)} | {_signed(r.get('charge'))} | "
                          f"{size_txt}"
-                         f"{self.cite(r, 'size', where='sources.md', what=f'ion size of {sp}', link=f'ions.md#{anchor}')} | "
+                         + self.cite(r, "size", where="sources.md", what=f"ion size of {sp}", link=f"ions.md#{anchor}")
+                         + " | "
                          f"{esc(r.get('note'))} |")
         lines.append(self.footer("sources.md"))
         return "\n".join(lines)

@@ -209,7 +209,8 @@ def _file_shape(data_dir, out):
         if doc is None:
             out.error(key, "-", "-", f"the file is empty: expected a mapping with the key '{key}'")
         elif not isinstance(doc, dict):
-            out.error(key, "-", "-", f"the top level is a {type(doc).__name__}: expected a mapping with the key '{key}'")
+            out.error(key, "-", "-", f"the top level is a {type(doc).__name__}: "
+                                     f"expected a mapping with the key '{key}'")
         else:
             if key not in doc:
                 out.error(key, "-", key, f"the top-level key '{key}' is missing")
@@ -321,9 +322,10 @@ def _schema_problems(kind, records, data_dir, out):
             known = set(err.schema.get("properties", {}) or {})
             patterns = list((err.schema.get("patternProperties") or {}).keys())
             extras = [k for k in err.instance if k not in known and not any(re.search(p, str(k)) for p in patterns)]
-            for name in extras or ["-"]:
-                lines.append((label, _field_path(rest + [name]) if extras else _field_path(rest),
-                              "unknown field: not in the schema (check the spelling)" if extras else _schema_message(err)))
+            if not extras:
+                lines.append((label, _field_path(rest), _schema_message(err)))
+            for name in extras:
+                lines.append((label, _field_path(rest + [name]), "unknown field: not in the schema (check the spelling)"))
         else:
             lines.append((label, _field_path(rest), _schema_message(err)))
     unique = list(dict.fromkeys(lines))
@@ -378,7 +380,8 @@ def _value_sourcing(kind, label, rec, out, parents=(), path=()):
         own = [p + "_source" for p in prefixes_all]
         if not any(c in rec for c in own) and not any("source" in r for r in chain):
             want = (prefixes[-1] + "_source") if prefixes else "source"
-            out.error(kind, label, field, f"value {_fmt(value)} has no source: add '{want}' with an id from sources.yaml")
+            out.error(kind, label, field, f"value {_fmt(value)} has no source: "
+                                          f"add '{want}' with an id from sources.yaml")
         own_conf = [p + "_confidence" for p in prefixes_all]
         conf_key = next((c for c in own_conf if c in rec), None)
         holder = rec if conf_key else next((r for r in chain if "confidence" in r), None)
@@ -460,7 +463,8 @@ def _duplicates(raw, out):
 
 
 def _linked_states(a, b):
-    return a.get("other_state") is not None and (a.get("other_state") == b.get("id") or b.get("other_state") == a.get("id"))
+    other_a, other_b = a.get("other_state"), b.get("other_state")
+    return other_a is not None and (other_a == b.get("id") or other_b == a.get("id"))
 
 
 # --- 5. ranges -------------------------------------------------------------------------------------
@@ -473,7 +477,8 @@ def _in_range(kind, label, field, value, lo, hi, unit, out, lo_open=False):
     low_bad = value <= lo if lo_open else value < lo
     if low_bad or value > hi:
         lo_txt = f"more than {lo:g}" if lo_open else f"{lo:g}"
-        out.error(kind, label, field, f"value {value:g} is outside the physical range {lo_txt} to {hi:g} {unit}".rstrip())
+        out.error(kind, label, field,
+                  f"value {value:g} is outside the physical range {lo_txt} to {hi:g} {unit}".rstrip())
         return False
     return True
 
@@ -510,7 +515,8 @@ def _ranges(raw, out):
         _in_range(k, label, "E0_V", rec.get("E0_V"), *E0_RANGE_V, "V vs SHE", out)
         n = rec.get("n")
         if _is_num(n) and (n != int(n) or not N_RANGE[0] <= n <= N_RANGE[1]):
-            out.error(k, label, "n", f"value {_fmt(n)} is not a whole number of electrons from {N_RANGE[0]} to {N_RANGE[1]}")
+            out.error(k, label, "n", f"value {_fmt(n)} is not a whole number of electrons "
+                                     f"from {N_RANGE[0]} to {N_RANGE[1]}")
         _in_range(k, label, "dEdT_mV_per_K", rec.get("dEdT_mV_per_K"), *DEDT_RANGE_MV_PER_K, "mV/K", out)
         _in_range(k, label, "dCp_J_per_mol_K", rec.get("dCp_J_per_mol_K"), *DCP_RANGE, "J/(mol·K)", out)
         _pair(k, label, "valid_C", rec.get("valid_C"), *TEMP_RANGE_C, "°C", out, strict=True)
@@ -525,7 +531,8 @@ def _ranges(raw, out):
                   ends="[active end, noble end]")
         _in_range(k, label, "anodic_index_V", rec.get("anodic_index_V"), *ANODIC_INDEX_RANGE_V, "V", out)
         _in_range(k, label, "density_g_cm3", rec.get("density_g_cm3"), *DENSITY_RANGE, "g/cm3", out)
-        _in_range(k, label, "equivalent_weight_g", rec.get("equivalent_weight_g"), 0.0, EW_MAX_G, "g", out, lo_open=True)
+        _in_range(k, label, "equivalent_weight_g", rec.get("equivalent_weight_g"), 0.0, EW_MAX_G, "g", out,
+                  lo_open=True)
         comp = rec.get("composition_wt_pct")
         if isinstance(comp, dict):
             total, ok = 0.0, True
@@ -689,7 +696,8 @@ def _check_triple(out, a, b, c):
         out.error(k, lc, "E0_V", text + f"; more than {ADDITIVITY_ERROR_V * 1000:g} mV is an error")
     elif abs(diff) > ADDITIVITY_WARN_V:
         out.warning(k, lc, "E0_V", text + f" (warning above {ADDITIVITY_WARN_V * 1000:g} mV: where handbooks "
-                                          "genuinely differ, keep the published values and say so in 'spread' or 'note')")
+                                          "genuinely differ, keep the published values and say so in 'spread' "
+                                          "or 'note')")
     da, db, dc = ra.get("dEdT_mV_per_K"), rb.get("dEdT_mV_per_K"), rc.get("dEdT_mV_per_K")
     if all(_is_num(d) for d in (da, db, dc)):
         dcomb = alpha * na * da + beta * nb * db
@@ -734,8 +742,9 @@ def _acid_alkaline(raw, out):
             if _is_num(da) and _is_num(db):
                 dexp = da + nu / n * DELTA_S_WATER / FARADAY * 1000.0
                 ddiff = db - dexp
-                dtext = (f"acid and alkaline forms: dE°/dT of {lb} is {db:g} mV/K, {la} and ΔS° of water dissociation "
-                         f"({DELTA_S_WATER:.2f} J/(mol·K)) give {dexp:.3f} mV/K (difference {ddiff:+.3f} mV/K)")
+                dtext = (f"acid and alkaline forms: dE°/dT of {lb} is {db:g} mV/K, {la} and ΔS° of water "
+                         f"dissociation ({DELTA_S_WATER:.2f} J/(mol·K)) give {dexp:.3f} mV/K "
+                         f"(difference {ddiff:+.3f} mV/K)")
                 if abs(ddiff) * n > ADDITIVITY_DEDT_ERROR:
                     out.error(k, lb, "dEdT_mV_per_K", dtext)
                 elif abs(ddiff) * n > ADDITIVITY_DEDT_WARN:
@@ -882,7 +891,8 @@ def _materials(raw, out):
         if state not in STATES:
             out.error(k, label, "state", f"state {_fmt(state)} with an other_state: expected passive or active")
         elif orec.get("state") == state:
-            out.error(k, label, "state", f"{label} and {other} are both {state!r}: one must be passive, the other active")
+            out.error(k, label, "state", f"{label} and {other} are both {state!r}: "
+                                         "one must be passive, the other active")
         elif state == "passive":
             for fld in SERIES_FIELDS.values():
                 p, a = rec.get(fld), orec.get(fld)

@@ -315,7 +315,8 @@ def test_value_out_of_physical_range(folder, fname, rid, field, value, reported,
 
 
 def test_a_value_outside_schema_and_physical_bounds_is_reported_once(folder):
-    edit(folder, "half_reactions.yaml", lambda doc: record(doc, "half_reactions", "Fe3+/Fe2+").__setitem__("E0_V", 7.71))
+    edit(folder, "half_reactions.yaml",
+         lambda doc: record(doc, "half_reactions", "Fe3+/Fe2+").__setitem__("E0_V", 7.71))
     status, lines = check(folder)
     assert status == 1
     assert len([ln for ln in lines if ln.startswith("half_reactions.yaml:Fe3+/Fe2+:E0_V:")]) == 1, lines
@@ -504,7 +505,8 @@ def test_other_state_unknown_and_same_state(folder):
 
 def test_passive_state_must_be_nobler(folder):
     edit(folder, "materials.yaml",
-         lambda doc: record(doc, "materials", "stainless-316-passive").__setitem__("seawater_range_V_SCE", [-0.58, -0.44]))
+         lambda doc: record(doc, "materials", "stainless-316-passive")
+         .__setitem__("seawater_range_V_SCE", [-0.58, -0.44]))
     status, lines = check(folder)
     assert status == 1
     assert_names(lines, "materials.yaml", "stainless-316-passive", "seawater_range_V_SCE", "not nobler")
@@ -544,3 +546,19 @@ def test_validate_raw_never_raises_on_garbage():
            "environments": None, "ions": [{"species": 7}]}
     lines = validate.validate_raw(raw, None)
     assert lines and all(re.match(r"^(warning: )?[a-z_]+\.yaml:[^:]+:[^:]+: ", ln) for ln in lines), lines
+
+
+def test_computed_equivalent_weight_must_match_composition(folder):
+    # ASTM G102: EW = 1/Σ(f·n/W); zinc, n = 2, W = 65.38 g/mol (IUPAC standard atomic weight,
+    # from memory) gives 32.69 g; 30.0 g is 8 % off
+    def change(doc):
+        zinc = record(doc, "materials", "zinc")
+        zinc.update(composition_wt_pct={"Zn": 100}, composition_source="astm-g102", composition_confidence="recalled",
+                    equivalent_weight_valences={"Zn": 2}, equivalent_weight_confidence="computed")
+    edit(folder, "materials.yaml", change)
+    assert check(folder) == (0, [])
+    edit(folder, "materials.yaml",
+         lambda doc: record(doc, "materials", "zinc").__setitem__("equivalent_weight_g", 30.0))
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "zinc", "equivalent_weight_g", "30", "32.69")
