@@ -78,4 +78,7 @@ def call_json(name, text):
         request = json.loads(text)
     except (TypeError, ValueError) as exc:
         return json.dumps({"ok": False, "error": {"field": "request", "message": f"request is not valid JSON: {exc}"}})
+    except RecursionError:
+        return json.dumps({"ok": False, "error": {"field": "request",
+                                                  "message": "request is nested too deeply: expected a flat JSON object"}})
     return json.dumps(call(name, request), allow_nan=False, ensure_ascii=False)

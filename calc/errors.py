@@ -13,19 +13,50 @@ class InputError(ValueError):
     """
 
     def __init__(self, field, value, allowed, hint=""):
-        self.field = field
+        self.field = _field_text(field)
         self.value = value
         self.allowed = allowed
         self.hint = hint
-        shown = repr(value) if isinstance(value, str) else value
-        msg = f"{field} = {shown}: expected {allowed}"
+        msg = f"{self.field} = {_value_text(value)}: expected {allowed}"
         if hint:
             msg += f" ({hint})"
-        super().__init__(msg)
+        super().__init__(_one_line(msg))
 
     def to_dict(self):
         """The error as plain data for JSON: field, message."""
         return {"field": self.field, "message": str(self)}
+
+
+#: longest value text shown in a message [characters]
+SHOWN_MAX = 200
+
+
+def _one_line(text):
+    return text.replace("\r", "\\r").replace("\n", "\\n")
+
+
+def _field_text(field):
+    """The field name as shown: as given, or quoted when it is empty or holds control characters."""
+    text = str(field)
+    if not text.strip() or any(ord(c) < 32 or ord(c) == 127 for c in text):
+        return repr(text)
+    return text
+
+
+def _value_text(value):
+    """The value as shown in a message: strings quoted, one line, at most SHOWN_MAX characters."""
+    try:
+        text = repr(value) if isinstance(value, str) else str(value)
+    except ValueError:  # an integer too long to write out in decimal (Python's 4300-digit limit)
+        if isinstance(value, int):
+            return f"an integer of about {int(value.bit_length() * 0.30103) + 1} digits"
+        return f"a {type(value).__name__} holding an integer too long to show"
+    except RecursionError:
+        return f"a {type(value).__name__} nested too deeply to show"
+    text = _one_line(text)
+    if len(text) > SHOWN_MAX:
+        text = text[:SHOWN_MAX] + f"… ({len(text)} characters)"
+    return text
 
 
 class DataError(ValueError):

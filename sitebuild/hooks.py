@@ -154,6 +154,67 @@ def stage_pyc_stdlib(rt_dir):
     return name
 
 
+SNAPSHOT_KEEP = 4  # snapshots kept in the cache (each ≈ 5.5 MB): the newest few datasets
+
+
+def _wheel_digest(path):
+    """SHA-256 over the names and bytes of a wheel's members (zip timestamps do not count)."""
+    import hashlib
+    import zipfile
+
+    h = hashlib.sha256()
+    with zipfile.ZipFile(path) as zf:
+        for name in sorted(zf.namelist()):
+            h.update(name.encode("utf-8") + b"\0" + hashlib.sha256(zf.read(name)).digest())
+    return h.hexdigest()
+
+
+def stage_snapshot(rt_dir, stdlib_name, wheel_path, data_version):
+    """Stage a Pyodide memory snapshot with calc imported (made under Node.js by
+    build/make_snapshot.mjs, cached in node_modules/.cache by what it depends on).
+
+    It pairs with the bytecode standard library ``stdlib_name`` (already in ``rt_dir``) and the
+    calc wheel at ``wheel_path``. Returns its file name, or None when there is no bytecode
+    standard library, no Node.js, or ``COUPLEWISE_SNAPSHOT=0`` (the page then starts from the
+    bytecode or stock standard library: slower, same answers).
+    """
+    import hashlib
+
+    if not stdlib_name or os.environ.get("COUPLEWISE_SNAPSHOT", "1") == "0":
+        return None
+    node = shutil.which("node")
+    if not node:
+        return None
+    script = os.path.join(ROOT, "build", "make_snapshot.mjs")
+    stdlib = os.path.join(rt_dir, stdlib_name)
+    key = hashlib.sha256()
+    for part in (_state["pyodide_version"], _wheel_digest(wheel_path)):
+        key.update(part.encode("utf-8") + b"\0")
+    for path in (stdlib, script, os.path.join(RUNTIME_SRC, "pyodide.asm.wasm")):
+        with open(path, "rb") as fh:
+            key.update(hashlib.sha256(fh.read()).digest())
+    name = f"snapshot-{key.hexdigest()[:16]}.bin.gz"
+    cache_dir = os.path.join(ROOT, "node_modules", ".cache", "couplewise")
+    cached = os.path.join(cache_dir, name)
+    if not os.path.exists(cached):
+        os.makedirs(cache_dir, exist_ok=True)
+        tmp = cached + ".tmp"
+        proc = subprocess.run([node, script, RUNTIME_SRC, stdlib, wheel_path, data_version, tmp],
+                              capture_output=True, text=True)
+        if proc.returncode != 0:
+            raise PluginError("making the runtime memory snapshot failed (set COUPLEWISE_SNAPSHOT=0 to build "
+                              "without it):\n" + (proc.stderr or proc.stdout)[-2000:])
+        os.replace(tmp, cached)
+        old = sorted((f for f in os.listdir(cache_dir) if f.startswith("snapshot-") and f.endswith(".bin.gz")),
+                     key=lambda f: os.path.getmtime(os.path.join(cache_dir, f)), reverse=True)
+        for stale in old[SNAPSHOT_KEEP:]:
+            os.remove(os.path.join(cache_dir, stale))
+    else:
+        os.utime(cached)  # recently used: kept by the pruning above
+    shutil.copy2(cached, os.path.join(rt_dir, name))
+    return name
+
+
 def on_post_build(config, **kwargs):
     site = config.site_dir
     bundle = _state["bundle"]
@@ -167,10 +228,12 @@ def on_post_build(config, **kwargs):
     stdlib_pyc = stage_pyc_stdlib(rt_dir)
     wheel_dir = os.path.join(site, "wheels", bundle["version"])
     wheel = build_wheel(bundle, wheel_dir)
+    snapshot = stage_snapshot(rt_dir, stdlib_pyc, os.path.join(wheel_dir, wheel), bundle["version"])
     runtime = {
         "pyodide_version": _state["pyodide_version"],
         "indexURL": "pyodide/",
         "stdLibURL": f"pyodide/{stdlib_pyc}" if stdlib_pyc else None,
+        "snapshot": f"pyodide/{snapshot}" if snapshot else None,
         "wheel": f"wheels/{bundle['version']}/{wheel}",
         "data_version": bundle["version"],
         "data_date": bundle["date"],
@@ -178,6 +241,6 @@ def on_post_build(config, **kwargs):
     }
     with open(os.path.join(site, "assets", "runtime.json"), "w", encoding="utf-8") as fh:
         json.dump(runtime, fh, indent=1)
-    from sitebuild.offline import write_service_worker
+    from sitebuild.offline import write_offline_support
 
-    write_service_worker(site)  # last: it hashes every other file of the site
+    write_offline_support(site)  # last: sw.js hashes every other file of the site

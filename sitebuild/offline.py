@@ -1,15 +1,42 @@
-"""Write the service worker and the web app manifest's precache list for a built site.
+"""Offline support for a built site: the service worker with its precache, and file:// support.
 
-The cache name comes from a hash of every file's bytes, so any change (data, calc, pages,
-runtime) makes a new version that the browser offers to the user on the next online visit.
+Called last from the build hooks (``write_offline_support``), when every other file is in place.
+
+* ``sw.js`` precaches every file of the site under one cache whose name carries the site's path
+  and a hash of every file's bytes: any change (data, calc, pages, runtime) is a new version that
+  the browser offers on the next online visit. Each precached file is fetched with its SHA-256
+  (Subresource Integrity), so a server that delivers a mixture of two builds cannot produce a
+  mixed cache: the install fails and is tried again on a later visit.
+* For pages opened from a file manager (file://), where no service worker or Pyodide can run,
+  the search index is also written as a script (``search/search_index.js``, which
+  mkdocs-material loads on file:// pages instead of fetching the JSON) and the small
+  ``iframe-worker`` shim from npm is staged so that material's search worker can start there.
+  ``docs/assets/js/file-pages.js`` makes directory links open their ``index.html``.
 """
 
+import base64
 import hashlib
 import json
+import logging
 import os
+import shutil
+
+from mkdocs.exceptions import PluginError
 
 HERE = os.path.dirname(os.path.abspath(__file__))
-SKIP = {"sw.js", "sitemap.xml", "sitemap.xml.gz"}
+ROOT = os.path.dirname(HERE)
+log = logging.getLogger("mkdocs.plugins.couplewise.offline")
+
+#: never precached: the worker itself (the browser fetches it outside any cache) and the
+#: compressed sitemap, which no browser requests.
+SKIP = {"sw.js", "sitemap.xml.gz"}
+#: precached but left out of the version hash: the sitemap carries the build date, not content.
+UNHASHED = {"sitemap.xml"}
+
+#: the file:// worker shim (npm package ``iframe-worker``, pinned in package.json) and where it
+#: goes in the site; mkdocs.yml lists it under ``extra.polyfills`` so it loads before material.
+SHIM_SRC = os.path.join(ROOT, "node_modules", "iframe-worker", "shim", "index.js")
+SHIM_DEST = "assets/js/iframe-worker.js"
 
 
 def site_files(site_dir):
@@ -24,36 +51,86 @@ def site_files(site_dir):
     return sorted(out)
 
 
-def content_hash(site_dir, files):
-    """SHA-256 over the paths and bytes of the files [hex, 16 characters]."""
-    h = hashlib.sha256()
+def file_digests(site_dir, files):
+    """SHA-256 digest (bytes) of each file, by relative path."""
+    out = {}
     for rel in files:
-        h.update(rel.encode("utf-8") + b"\0")
+        h = hashlib.sha256()
         with open(os.path.join(site_dir, rel), "rb") as fh:
-            h.update(hashlib.sha256(fh.read()).digest())
+            for chunk in iter(lambda: fh.read(1 << 20), b""):
+                h.update(chunk)
+        out[rel] = h.digest()
+    return out
+
+
+def content_hash(digests):
+    """SHA-256 over the paths and digests of the files, except UNHASHED [hex, 16 characters]."""
+    h = hashlib.sha256()
+    for rel in sorted(digests):
+        if rel in UNHASHED:
+            continue
+        h.update(rel.encode("utf-8") + b"\0" + digests[rel])
     return h.hexdigest()[:16]
 
 
-def precache_urls(files):
-    """URLs to precache: directory URLs stand for their index.html (how pages are linked)."""
-    urls = []
-    for rel in files:
-        if rel == "index.html":
-            urls.append("./")
-        elif rel.endswith("/index.html"):
-            urls.append(rel[: -len("index.html")])
-        else:
-            urls.append(rel)
-    return urls
+def url_for(rel):
+    """The URL a file is requested by, relative to the site root: directory URLs for index pages."""
+    if rel == "index.html":
+        return "./"
+    if rel.endswith("/index.html"):
+        return rel[: -len("index.html")]
+    return rel
+
+
+def precache_entries(digests):
+    """[[url, integrity], ...] for the service worker, sorted by URL."""
+    return sorted([url_for(rel), "sha256-" + base64.b64encode(d).decode("ascii")] for rel, d in digests.items())
+
+
+def _runtime_meta(site_dir):
+    path = os.path.join(site_dir, "assets", "runtime.json")
+    if not os.path.isfile(path):
+        raise PluginError("assets/runtime.json is missing: the runtime must be staged before the service worker")
+    with open(path, encoding="utf-8") as fh:
+        info = json.load(fh)
+    return {k: info.get(k) for k in ("data_version", "data_date", "build")}
+
+
+def write_file_url_support(site_dir):
+    """Write search/search_index.js and stage the worker shim (both used on file:// pages only)."""
+    index = os.path.join(site_dir, "search", "search_index.json")
+    if os.path.isfile(index):
+        with open(index, encoding="utf-8") as fh:
+            data = fh.read()
+        with open(os.path.join(site_dir, "search", "search_index.js"), "w", encoding="utf-8") as fh:
+            fh.write("var __index = " + data)
+    if not os.path.isfile(SHIM_SRC):
+        raise PluginError("node_modules/iframe-worker is missing (the search shim for file:// pages): "
+                           "run 'make setup' (npm ci)")
+    dest = os.path.join(site_dir, *SHIM_DEST.split("/"))
+    os.makedirs(os.path.dirname(dest), exist_ok=True)
+    shutil.copyfile(SHIM_SRC, dest)
 
 
 def write_service_worker(site_dir):
-    """Write sw.js into the built site; returns the version (content hash)."""
+    """Write sw.js into the built site; returns (version, number of files, bytes precached)."""
     files = site_files(site_dir)
-    version = content_hash(site_dir, files)
+    digests = file_digests(site_dir, files)
+    version = content_hash(digests)
+    meta = dict(_runtime_meta(site_dir), version=version)
     with open(os.path.join(HERE, "sw_template.js"), encoding="utf-8") as fh:
         template = fh.read()
-    text = template.replace("__VERSION__", version).replace("__PRECACHE__", json.dumps(precache_urls(files), indent=0))
+    text = (template.replace("__META__", json.dumps(meta))
+            .replace("__PRECACHE__", json.dumps(precache_entries(digests), indent=0)))
     with open(os.path.join(site_dir, "sw.js"), "w", encoding="utf-8") as fh:
         fh.write(text)
+    size = sum(os.path.getsize(os.path.join(site_dir, rel)) for rel in files)
+    return version, len(files), size
+
+
+def write_offline_support(site_dir):
+    """Everything offline for a built site; the service worker last (it hashes every other file)."""
+    write_file_url_support(site_dir)
+    version, count, size = write_service_worker(site_dir)
+    log.info("offline: sw.js precaches %d files, %.1f MB, version %s", count, size / 1e6, version)
     return version

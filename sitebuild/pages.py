@@ -218,8 +218,8 @@ class _Pages:
             flags = []
             if r.get("hypothetical"):
                 flags.append(HYPOTHETICAL)
-            if r.get("spread"):
-                flags.append("handbooks: " + esc(r["spread"]))
+            if r.get("spread") or r.get("note"):
+                flags.append(f"[see note](#note-{anchor})" + (" (handbooks differ)" if r.get("spread") else ""))
             valid = r.get("valid_C")
             if isinstance(valid, list) and len(valid) == 2:
                 flags.append(f"valid {_num(valid[0])} to {_num(valid[1])} °C")
@@ -228,8 +228,13 @@ class _Pages:
             alias_txt = ("<br>also: " + ", ".join(esc(a) for a in aliases)) if aliases else ""
             lines.append(f"| <span id=\"{anchor}\"></span>**{esc(cid)}**<br>{name}{alias_txt} | "
                          f"{reaction_html(r)} | {_num(r.get('n'))} | {e0} | {dedt} | {'<br>'.join(flags)} |")
+            parts = []
+            if r.get("spread"):
+                parts.append("Published values: " + esc(r["spread"]) + ".")
             if r.get("note"):
-                notes.append(f"- [{esc(cid)}](#{anchor}): {esc(r['note'])}")
+                parts.append(esc(r["note"]))
+            if parts:
+                notes.append(f"- <span id=\"note-{anchor}\"></span>[{esc(cid)}](#{anchor}): " + " ".join(parts))
         if notes:
             lines += ["", "## Notes", ""] + notes
         lines.append(self.footer("sources.md"))

@@ -191,32 +191,31 @@ def _each(raw, kind):
 
 
 # --- 1. file shape ---------------------------------------------------------------------------------
-def _file_shape(data_dir, out):
-    from .yamlsafe import load_file
+_TOP_KEY_RE = re.compile(r"^([^\s#\-][^:\n]*?)\s*:(?:[ \t]|$)", re.M)
 
+
+def _file_shape(raw, data_dir, out):
+    """The schema line first and one top-level key per file (read from the text: no second parse)."""
     for fname, key in FILES.items():
         path = os.path.join(data_dir, fname)
-        if not os.path.exists(path):
+        if not os.path.exists(path) or os.path.getsize(path) > 2 * 1024 * 1024:
             continue  # reported by the reader
         expected = f"# yaml-language-server: $schema=schema/{fname[:-5]}.schema.json"
-        with open(path, "rb") as fh:
-            first = fh.readline(400).decode("utf-8", "replace").strip()
-        doc, probs = load_file(path)
-        if probs:
-            continue  # reported by the reader
-        if first != expected:
+        with open(path, encoding="utf-8", errors="replace") as fh:
+            text = fh.read()
+        if text.split("\n", 1)[0].strip() != expected:
             out.error(key, "-", "-", f"the first line must be '{expected}' so editors validate while typing")
-        if doc is None:
-            out.error(key, "-", "-", f"the file is empty: expected a mapping with the key '{key}'")
-        elif not isinstance(doc, dict):
-            out.error(key, "-", "-", f"the top level is a {type(doc).__name__}: "
-                                     f"expected a mapping with the key '{key}'")
-        else:
-            if key not in doc:
-                out.error(key, "-", key, f"the top-level key '{key}' is missing")
-            for other in doc:
-                if other != key:
-                    out.error(key, "-", str(other), f"unknown top-level key {other!r}: the file holds only '{key}'")
+        top = [k.strip("'\"") for k in _TOP_KEY_RE.findall(text)]
+        if not top:
+            out.error(key, "-", "-", f"the file holds no mapping: expected the top-level key '{key}'")
+            continue
+        if key not in raw:
+            continue  # unreadable: reported by the reader
+        if key not in top:
+            out.error(key, "-", key, f"the top-level key '{key}' is missing")
+        for other in top:
+            if other != key:
+                out.error(key, "-", other, f"unknown top-level key {other!r}: the file holds only '{key}'")
 
 
 # --- 2. JSON Schema ----------------------------------------------------------------------------------
@@ -325,7 +324,8 @@ def _schema_problems(kind, records, data_dir, out):
             if not extras:
                 lines.append((label, _field_path(rest), _schema_message(err)))
             for name in extras:
-                lines.append((label, _field_path(rest + [name]), "unknown field: not in the schema (check the spelling)"))
+                lines.append((label, _field_path(rest + [name]),
+                              "unknown field: not in the schema (check the spelling)"))
         else:
             lines.append((label, _field_path(rest), _schema_message(err)))
     unique = list(dict.fromkeys(lines))
@@ -826,9 +826,9 @@ def _reference_electrodes(raw, out):
                 cur = refelec_potential(rec, t)
                 rate = (cur - prev) / ((hi - lo) / steps)
                 if abs(rate) > REFELEC_MAX_SLOPE_V_PER_K:
-                    out.error(k, label, "temperature", f"the {kind} model changes by {rate * 1000:.2f} mV/K near "
-                                                       f"{t:g} °C: more than {REFELEC_MAX_SLOPE_V_PER_K * 1000:g} mV/K "
-                                                       "means a coefficient is wrong")
+                    out.error(k, label, "temperature",
+                              f"the {kind} model changes by {rate * 1000:.2f} mV/K near {t:g} °C: more than "
+                              f"{REFELEC_MAX_SLOPE_V_PER_K * 1000:g} mV/K means a coefficient is wrong")
                     break
                 prev = cur
 
@@ -958,7 +958,7 @@ def validate_raw(raw, data_dir):
     """
     out = _Collector()
     if data_dir:
-        _file_shape(data_dir, out)
+        _file_shape(raw, data_dir, out)
     for kind in KIND_ORDER:
         if kind in raw:
             records = raw[kind]

@@ -1,38 +1,85 @@
 // Couplewise calculation worker: owns the Pyodide runtime so the page never freezes.
 // Everything is loaded from the site's own files; no other host is contacted.
+//
+// Start-up takes the fastest path that works, and falls back so a failure costs time, never
+// the answer (see docs/performance.md):
+//   1. "snapshot": restore a memory image made at build time with calc already imported
+//      (private Pyodide API; it pairs with the bytecode standard library it was made with);
+//   2. "bytecode": the standard library precompiled to .pyc at build time, then the calc wheel;
+//   3. "stock":    Pyodide's own standard library, then the calc wheel.
 const siteRoot = new URL("../../", import.meta.url);
 
 function status(stage, detail) {
   self.postMessage({ type: "status", stage, detail });
 }
 
+function message(err) {
+  return String(err && err.message ? err.message : err);
+}
+
+// The snapshot is shipped gzip-compressed; inflate it in the worker. A server that labels the
+// file Content-Encoding: gzip has the browser inflate it already: then use it as it is.
+async function fetchSnapshot(url) {
+  const resp = await fetch(url);
+  if (!resp.ok) throw new Error("snapshot: HTTP " + resp.status);
+  const bytes = new Uint8Array(await resp.arrayBuffer());
+  if (bytes[0] !== 0x1f || bytes[1] !== 0x8b) return bytes;
+  const inflated = new Blob([bytes]).stream().pipeThrough(new DecompressionStream("gzip"));
+  return new Uint8Array(await new Response(inflated).arrayBuffer());
+}
+
 async function boot() {
   status("loading", "runtime description");
   const info = await (await fetch(new URL("assets/runtime.json", siteRoot))).json();
   const indexURL = new URL(info.indexURL, siteRoot).href;
+  const stdLibURL = info.stdLibURL ? new URL(info.stdLibURL, siteRoot).href : null;
+  // Start the (largest) download at once, while the runtime's script loads.
+  const snapshot = info.snapshot && stdLibURL ? fetchSnapshot(new URL(info.snapshot, siteRoot).href) : null;
+  if (snapshot) snapshot.catch(() => {}); // a failure is handled below, where it is awaited
   status("loading", "Python runtime");
   const { loadPyodide } = await import(new URL("pyodide.mjs", indexURL).href);
   const quiet = { indexURL, stdout: () => {}, stderr: () => {} };
-  let pyodide;
-  if (info.stdLibURL) {
-    // Standard library precompiled to bytecode at build time: much faster start.
+  const failures = [];
+  let pyodide = null;
+  let api = null;
+  let path = null;
+
+  if (snapshot) {
     try {
-      pyodide = await loadPyodide({ ...quiet, stdLibURL: new URL(info.stdLibURL, siteRoot).href });
+      pyodide = await loadPyodide({ ...quiet, stdLibURL, _loadSnapshot: snapshot });
+      api = pyodide.pyimport("calc.api");
+      const version = pyodide.runPython("import calc.dataset; calc.dataset.current().version");
+      if (version !== info.data_version) throw new Error("snapshot holds data version " + version + ", the site " + info.data_version);
+      path = "snapshot";
     } catch (err) {
-      status("loading", "Python runtime (plain standard library)");
+      failures.push("snapshot: " + message(err));
+      pyodide = api = null;
     }
   }
-  if (!pyodide) pyodide = await loadPyodide(quiet);
-  status("loading", "calculation package");
-  await pyodide.loadPackage(new URL(info.wheel, siteRoot).href, { messageCallback: () => {} });
-  const api = pyodide.pyimport("calc.api");
+  for (const [name, opts] of [["bytecode", stdLibURL ? { stdLibURL } : null], ["stock", {}]]) {
+    if (path || !opts) continue;
+    try {
+      if (name === "stock" && failures.length) status("loading", "Python runtime (plain standard library)");
+      pyodide = await loadPyodide({ ...quiet, ...opts });
+      status("loading", "calculation package");
+      await pyodide.loadPackage(new URL(info.wheel, siteRoot).href, { messageCallback: () => {}, errorCallback: () => {} });
+      api = pyodide.pyimport("calc.api");
+      path = name;
+    } catch (err) {
+      failures.push(name + ": " + message(err));
+      pyodide = api = null;
+    }
+  }
+  if (!path) throw new Error(failures.join("; "));
+  // For tests and the benchmark (read through the worker's global scope): which path started.
+  self.cwStart = { path, failures };
   const callJson = api.call_json;
   status("ready", info.data_version);
   return { callJson, info };
 }
 
 const ready = boot().catch((err) => {
-  status("failed", String(err && err.message ? err.message : err));
+  status("failed", message(err));
   throw err;
 });
 
@@ -43,6 +90,6 @@ self.onmessage = async (event) => {
     const out = JSON.parse(callJson(name, JSON.stringify(request)));
     self.postMessage({ type: "result", id, out });
   } catch (err) {
-    self.postMessage({ type: "result", id, out: { ok: false, error: { field: "runtime", message: "The calculation runtime could not run: " + String(err && err.message ? err.message : err) } } });
+    self.postMessage({ type: "result", id, out: { ok: false, error: { field: "runtime", message: "The calculation runtime could not run: " + message(err) } } });
   }
 };

@@ -89,7 +89,11 @@ export function frame(root, title) {
   const formMsg = h("div", { class: "cw-form-msg", role: "alert" });
   const result = h("section", { class: "cw-result", "aria-live": "polite", "aria-label": title + " result" });
   const printBtn = h("button", { type: "button", class: "md-button cw-print", onclick: () => window.print(), text: "Print this record" });
-  root.replaceChildren(status, formBox, formMsg, result, h("div", { class: "cw-actions" }, printBtn));
+  const printHead = h("div", { class: "cw-print-only cw-print-head" });
+  const printFoot = h("div", { class: "cw-print-only cw-print-foot" },
+    h("p", { class: "cw-print-cautions", text: "Cautions: a screening estimate, not a design approval. Films, flow, temperature, crevices, biofilm, coatings and geometry change real behaviour. For structural, pressure, potable-water or cathodic-protection decisions apply the governing codes and standards and have the result checked by a qualified corrosion professional." }));
+  root.replaceChildren(printHead, status, formBox, formMsg, result, h("div", { class: "cw-actions" }, printBtn), printFoot);
+  preparePrint(root, title, printHead);
   onRuntime((rt) => {
     const text = {
       idle: "Calculation runtime: not started",
@@ -101,6 +105,32 @@ export function frame(root, title) {
     status.dataset.stage = rt.stage;
   });
   return { status, formBox, formMsg, result };
+}
+
+// Print view: a one-page record with the inputs (the form prints its values), the result,
+// every derivation step (details opened for printing), the data version, build and cautions.
+const printHooks = new Set();
+window.addEventListener("beforeprint", () => { for (const fn of printHooks) fn(true); });
+window.addEventListener("afterprint", () => { for (const fn of printHooks) fn(false); });
+
+function preparePrint(root, title, head) {
+  let opened = [];
+  const hook = (before) => {
+    if (!root.isConnected) { printHooks.delete(hook); return; }
+    if (before) {
+      const footer = document.querySelector(".cw-footer");
+      fill(head,
+        h("p", { class: "cw-print-title", text: "Couplewise record: " + title }),
+        h("p", { text: "Printed " + new Date().toISOString().replace("T", " ").slice(0, 16) + " UTC. Reproduce it at: " + location.href }),
+        footer ? h("p", { text: footer.textContent.replace(/\s+/g, " ").trim() }) : null);
+      opened = [...root.querySelectorAll("details:not([open])")];
+      for (const d of opened) d.open = true;
+    } else {
+      for (const d of opened) d.open = false;
+      opened = [];
+    }
+  };
+  printHooks.add(hook);
 }
 
 export function derivation(steps) {
@@ -282,13 +312,57 @@ async function coupleCalc(root) {
       h("p", { class: "cw-big" }, h("span", { class: "cw-big-label", text: "E cell " }), h("span", { class: "cw-big-value", "data-cw-value": "cell_potential_V", text: signed(r.cell_potential_V) }), h("span", { class: "cw-unit", text: " V" })),
       h("p", { class: "cw-direction" }, h("strong", { text: an }), " is oxidised (the anode); ", h("strong", { text: ca }), " is reduced (the cathode)."),
       h("p", { class: "cw-reaction" }, "Overall: ", h("span", { class: "cw-formula", text: r.overall_reaction })),
-      warningsList(r.warnings), tbl, derivation(r.steps), sourcesLine(r.sources, r.data_version));
+      warningsList(r.warnings), tbl, ephBox, derivation(r.steps), sourcesLine(r.sources, r.data_version));
+    if (lastReq) drawEpH(lastReq, r);
   }
 
+  // E–pH picture: the water stability lines and both couples' lines against pH at the
+  // stated temperature and activities (pH-dependent couples show as slopes).
+  const ephBox = h("div", { class: "cw-charts" });
+  let ephTicket = 0;
+  function requestFor(id, req, pH) {
+    const rec = byId.get(id);
+    const names = new Set(rec ? [...rec.oxidised, ...rec.reduced].map((t) => (parseSpecies(t) || {}).name) : []);
+    const rq = { id, temp_C: req.temp_C, pH };
+    for (const k of ["activities", "pressures"]) {
+      const kept = Object.fromEntries(Object.entries(req[k] || {}).filter(([n]) => names.has(n)));
+      if (Object.keys(kept).length) rq[k] = kept;
+    }
+    return rq;
+  }
+  async function drawEpH(req, r) {
+    const my = ++ephTicket;
+    const lines = [
+      { name: "H+/H2", id: "H+/H2", dash: "2 4" },
+      { name: "O2/H2O", id: "O2/H2O", dash: "2 4" },
+      { name: req.a, id: req.a, dash: "none" },
+      { name: req.b, id: req.b, dash: "8 3" },
+    ];
+    const series = [];
+    for (const ln of lines) {
+      const pts = [];
+      for (let pH = 0; pH <= 14; pH += 1) {
+        const out = await calculate("electrode", requestFor(ln.id, ln.id === req.a || ln.id === req.b ? req : { temp_C: req.temp_C }, pH));
+        if (my !== ephTicket) return;
+        if (out.ok) pts.push([pH, out.result.potential_V]);
+      }
+      series.push({ name: ln.name, points: pts, dash: ln.dash });
+    }
+    const anode = r.anode_electrode || {};
+    const phNow = req.pH !== undefined ? req.pH : 7;
+    ephBox.replaceChildren(lineChart({
+      title: "E–pH: water stability lines and the two couples", xLabel: "pH", yLabel: "E (V vs SHE)",
+      desc: "Between the dotted H+/H2 and O2/H2O lines water is stable; a couple whose line lies below the H+/H2 line can reduce water to hydrogen at that pH.",
+      series, marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
+    }));
+  }
+
+  let lastReq = null;
   const run = runner(ui, "couple", render, fieldFor);
   function changed(rebuild) {
     if (rebuild) rebuildConditions();
     const { req, bad } = collect();
+    lastReq = bad ? null : req;
     run.schedule(req, bad);
   }
   aField.control.addEventListener("change", () => changed(true));
@@ -296,6 +370,7 @@ async function coupleCalc(root) {
   ui.formBox.addEventListener("input", (e) => { if (e.target.tagName === "INPUT") changed(false); });
   rebuildConditions();
   const { req, bad } = collect();
+  lastReq = bad ? null : req;
   fill(ui.result, h("p", { class: "cw-pending", text: "Computing…" }));
   run.now(req, bad);
 }

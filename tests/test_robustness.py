@@ -1,0 +1,576 @@
+"""Robustness: every JSON entry point and every command of the command line under arbitrary,
+malformed and extreme input.
+
+What is asserted for every generated case:
+
+- the JSON entry points (:func:`calc.api.call`): either ``{"ok": true, "result": {...}}`` with a
+  result that is plain JSON (``json.dumps(allow_nan=False)`` works: no NaN, no Infinity anywhere)
+  or ``{"ok": false, "error": {"field", "message"}}``: one error whose message is one line and
+  starts with the field it names; no exception ever escapes;
+- the command line (:func:`calc.cli.main`, run in this process with stdout and stderr captured):
+  exit 0 with output on stdout only (``--json``: one JSON object, no NaN), or exit 2 with nothing
+  on stdout and exactly one line on stderr starting ``couplewise: ``, never a traceback.
+
+Inputs: missing fields, unknown fields, wrong types, NaN, ±Infinity, huge and tiny numbers
+(1e308, 5e-324, integers of hundreds of digits), negative activities, unknown ids, unicode,
+empty strings, numbers written as text, and nested junk; mixed with valid values so that the
+calculations themselves are reached, not only the first check.
+
+Every test counts the cases it tried and how many were rejected with an error; the counts are
+printed in a summary at the end of the run ("robustness" section). The number of cases per
+entry point and per command comes from the settings profile below: 200 by default,
+``COUPLEWISE_ROBUSTNESS_EXAMPLES=2000`` for a deeper run.
+
+Values checked against published numbers (extreme but valid inputs, at the end) name their
+source beside them.
+"""
+
+import contextlib
+import io
+import json
+import math
+import os
+
+import pytest
+from hypothesis import HealthCheck, assume, given, settings
+from hypothesis import strategies as st
+
+from calc import api, cli
+from calc.activity import VALID_I_MAX
+from calc.conditions import ACTIVITY_MAX, PRESSURE_MAX_ATM
+from calc.constants import nernst_slope, T_ZERO_C
+
+# ---------------------------------------------------------------------------- the settings profile
+
+EXAMPLES = int(os.environ.get("COUPLEWISE_ROBUSTNESS_EXAMPLES", "200"))
+settings.register_profile(
+    "couplewise-robustness", max_examples=EXAMPLES, deadline=None,
+    suppress_health_check=[HealthCheck.too_slow, HealthCheck.data_too_large, HealthCheck.filter_too_much])
+ROBUST = settings.get_profile("couplewise-robustness")
+
+#: test label -> {"tried": n, "rejected": n}
+COUNTS = {}
+
+
+def _count(label, rejected):
+    c = COUNTS.setdefault(label, {"tried": 0, "rejected": 0})
+    c["tried"] += 1
+    c["rejected"] += int(bool(rejected))
+
+
+class _Summary:
+    """Prints the cases tried and rejected per entry point and command at the end of the run."""
+
+    def pytest_terminal_summary(self, terminalreporter):
+        if not COUNTS:
+            return
+        tr = terminalreporter
+        tr.write_sep("-", f"robustness: cases tried and rejected (profile: {EXAMPLES} per test)")
+        total_t = total_r = 0
+        for label in sorted(COUNTS):
+            c = COUNTS[label]
+            total_t += c["tried"]
+            total_r += c["rejected"]
+            tr.write_line(f"{label:<28} tried {c['tried']:>6}   rejected {c['rejected']:>6}   "
+                          f"computed {c['tried'] - c['rejected']:>6}")
+        tr.write_line(f"{'total':<28} tried {total_t:>6}   rejected {total_r:>6}   computed {total_t - total_r:>6}")
+
+
+@pytest.fixture(scope="module", autouse=True)
+def _summary(request):
+    pm = request.config.pluginmanager
+    if pm.get_plugin("couplewise-robustness-summary") is None:
+        pm.register(_Summary(), "couplewise-robustness-summary")
+    yield
+
+
+@pytest.fixture(autouse=True)
+def _dataset(shipped):
+    """Every test runs against the shipped dataset."""
+    return shipped
+
+
+def _bundle():
+    from sitebuild.dataset import load_project_bundle
+
+    return load_project_bundle()
+
+
+_B = _bundle()
+HALF_IDS = sorted(r["id"] for r in _B["half_reactions"])
+REF_IDS = sorted(r["id"] for r in _B["reference_electrodes"]) + ["RHE"]
+MATERIAL_IDS = sorted(r["id"] for r in _B["materials"])
+ENV_IDS = sorted(r["id"] for r in _B["environments"])
+ION_NAMES = sorted(r["species"] for r in _B["ions"])
+
+# ---------------------------------------------------------------------------- building blocks
+
+NONFINITE = [math.nan, math.inf, -math.inf]
+#: finite numbers at the edges of what a double holds, and integers no double holds
+EDGE_NUMBERS = [0, 0.0, -0.0, 1e-12, -1e-12, 1e-300, 5e-324, -5e-324, 1e308, -1e308, 1.7976931348623157e308,
+                2 ** 53 + 1, 10 ** 20, -(10 ** 20), -1, 1, 10, 100, 1000, 1e6, 1e9]
+#: integers beyond any double (10^400), and beyond what Python turns into text by default (10^5000)
+HUGE_INTS = st.sampled_from([400, -400, 5000, -5000]).map(lambda k: 10 ** k if k > 0 else -(10 ** -k))
+#: numbers written as text, some valid, most not
+NUMBER_TEXT = ["nan", "NaN", "inf", "-inf", "Infinity", "1e999", "-1e999", "1e-400", "", " ", "0x10", "1_000",
+               "１２", "½", "1,5", "−1", "٣", "0.1", " 25 ", "1e3", "9" * 5000, "--1", "+", "e", "1e", "٫"]
+WEIRD_TEXT = ["", " ", "\x00", "\n", "\t\r", "<script>window.__pwned=1</script>", "<img src=x onerror=alert(1)>",
+              "𝔷𝔫", "Zn²⁺", "Ｚｎ2+", "zn2+/zn", " Zn2+/Zn ", "Zn2+ / Zn", "\u202eZn", "x" * 3000, "'; DROP TABLE",
+              "${7*7}", "{{7*7}}", "../../etc/passwd", "%00", "null", "None", "true", "[]", "{}", "🧪", "e\u0301"]
+
+BASE_JUNK = st.one_of(
+    st.none(), st.booleans(), st.integers(), st.integers(min_value=-(10 ** 30), max_value=10 ** 30),
+    st.floats(allow_nan=True, allow_infinity=True), st.sampled_from(NONFINITE + EDGE_NUMBERS), HUGE_INTS,
+    st.text(max_size=20), st.sampled_from(NUMBER_TEXT + WEIRD_TEXT))
+JUNK = st.recursive(BASE_JUNK, lambda inner: st.one_of(
+    st.lists(inner, max_size=3), st.dictionaries(st.text(max_size=6), inner, max_size=3)), max_leaves=6)
+
+
+def number(lo, hi):
+    """A number field: mostly in or near [lo, hi], else edge values, non-finite, text or junk."""
+    return st.one_of(
+        st.floats(lo, hi, allow_nan=False), st.floats(lo, hi, allow_nan=False),
+        st.integers(int(max(lo, -10 ** 6)), int(min(hi, 10 ** 6))),
+        st.floats(allow_nan=True, allow_infinity=True),
+        st.sampled_from(NONFINITE + EDGE_NUMBERS), HUGE_INTS, st.sampled_from(NUMBER_TEXT), JUNK)
+
+
+def ident(pool):
+    """An id field: a real id, one written differently, a near miss, weird text, junk."""
+    real = st.sampled_from(pool)
+    return st.one_of(
+        real, real, real,
+        real.map(str.upper), real.map(lambda s: s.replace("-", " ")), real.map(lambda s: s[:-1] or "x"),
+        real.map(lambda s: s + "\u0000"), st.text(max_size=15), st.sampled_from(WEIRD_TEXT), JUNK)
+
+
+def mapping(keys, lo, hi):
+    """A {species: value} field: plausible keys and values, weird keys, or junk instead of a mapping."""
+    key = st.one_of(st.sampled_from(keys), st.sampled_from(keys).map(lambda k: k + "(aq)"),
+                    st.text(max_size=8), st.sampled_from(WEIRD_TEXT[:12]))
+    return st.one_of(st.dictionaries(key, number(lo, hi), max_size=4), st.dictionaries(key, number(lo, hi), max_size=4),
+                     JUNK)
+
+
+SPECIES_KEYS = ION_NAMES + ["O2", "H2", "Cl2", "H2O", "H2O2", "H2S", "Br2", "I2"]
+CONDITIONS = {
+    "temp_C": number(-5, 105),
+    "activities": mapping(SPECIES_KEYS, 1e-14, 20),
+    "molalities": mapping(SPECIES_KEYS, 1e-14, 6),
+    "pressures": mapping(["O2", "H2", "Cl2", "N2"], 1e-9, 50),
+    "ionic_strength": number(0, 6),
+    "env": ident(ENV_IDS),
+    "composition": mapping(ION_NAMES, 0, 6),
+    "model": st.one_of(st.sampled_from(list(VALID_I_MAX) + ["Davies", "dh", "truesdell-jones", "pitzer", ""]), JUNK),
+    "pH": number(-3, 17),
+}
+
+#: entry point -> (required fields, optional fields); each field -> strategy of values
+FIELDS = {
+    "electrode": ({"id": ident(HALF_IDS)}, dict(CONDITIONS)),
+    "couple": ({"a": ident(HALF_IDS), "b": ident(HALF_IDS)},
+               {**CONDITIONS, "a_conditions": st.one_of(st.fixed_dictionaries({}, optional={
+                   "activities": CONDITIONS["activities"], "pH": CONDITIONS["pH"],
+                   "pressures": CONDITIONS["pressures"], "temp_C": CONDITIONS["temp_C"]}), JUNK),
+                "b_conditions": st.one_of(st.fixed_dictionaries({}, optional={
+                    "activities": CONDITIONS["activities"], "molalities": CONDITIONS["molalities"],
+                    "pH": CONDITIONS["pH"]}), JUNK)}),
+    "convert": ({"value_V": number(-12, 12), "from": ident(REF_IDS), "to": ident(REF_IDS)},
+                {"temp_C": CONDITIONS["temp_C"], "pH": CONDITIONS["pH"]}),
+    "activity": ({"species": ident(ION_NAMES)},
+                 {"ionic_strength": number(0, 6), "composition": CONDITIONS["composition"], "env": ident(ENV_IDS),
+                  "model": CONDITIONS["model"], "temp_C": CONDITIONS["temp_C"], "size_angstrom": number(0, 20),
+                  "molality": number(0, 6)}),
+    "joint": ({"a": ident(MATERIAL_IDS), "b": ident(MATERIAL_IDS), "env": ident(ENV_IDS)},
+              {"area_ratio": number(1e-5, 1e5)}),
+    "matrix": ({"env": ident(ENV_IDS)},
+               {"materials": st.one_of(st.lists(ident(MATERIAL_IDS), max_size=6), st.lists(ident(MATERIAL_IDS),
+                                                                                           min_size=1, max_size=3),
+                                       JUNK)}),
+    "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e5)}, {}),
+}
+assert sorted(FIELDS) == sorted(api.ENTRY_POINTS), "every entry point has a request strategy here"
+
+
+@st.composite
+def requests(draw, name):
+    """A request for one entry point: valid-looking, then possibly broken in one or more ways."""
+    required, optional = FIELDS[name]
+    kind = draw(st.integers(0, 19))
+    if kind == 0:  # not an object at all, or an object of junk
+        return draw(st.one_of(JUNK, st.dictionaries(st.text(max_size=8), JUNK, max_size=4)))
+    req = draw(st.fixed_dictionaries(required, optional=optional))
+    if kind == 1 and req:  # a required field missing
+        req.pop(draw(st.sampled_from(sorted(req))))
+    elif kind == 2:  # an unknown field
+        req[draw(st.one_of(st.text(max_size=10), st.sampled_from(["temp", "T", "Temp_C", "a\nb", "__proto__"])))] = \
+            draw(JUNK)
+    elif kind == 3 and req:  # a field given as null
+        req[draw(st.sampled_from(sorted(req)))] = None
+    return req
+
+
+def check_api(name, req):
+    """One call of an entry point: a result or one clear error, plain JSON either way."""
+    out = api.call(name, req)  # any exception escaping fails the test
+    text = json.dumps(out, allow_nan=False, ensure_ascii=False)
+    assert "Traceback" not in text
+    assert isinstance(out, dict) and isinstance(out.get("ok"), bool)
+    if out["ok"]:
+        assert set(out) == {"ok", "result"}
+        res = out["result"]
+        assert isinstance(res, dict)
+        for key in ("steps", "warnings", "sources", "data_version"):
+            assert key in res, f"{name}: result without {key}"
+        for w in res["warnings"]:
+            assert isinstance(w, dict) and isinstance(w.get("message"), str) and w["message"], w
+    else:
+        assert set(out) == {"ok", "error"}
+        err = out["error"]
+        assert set(err) == {"field", "message"}
+        field, msg = err["field"], err["message"]
+        assert isinstance(field, str) and field.strip(), err
+        assert isinstance(msg, str) and msg.strip(), err
+        assert "\n" not in msg and "\r" not in msg, f"the error is not one line: {msg!r}"
+        # the message names the field it is about
+        assert msg.startswith(field) or field == "dataset", err
+        assert len(msg) <= 2000, f"error message of {len(msg)} characters"
+    _count(f"api {name}", not out["ok"])
+    return out
+
+
+@pytest.mark.parametrize("name", sorted(FIELDS))
+def test_entry_point_gives_a_result_or_one_clear_error(name):
+    @ROBUST
+    @given(requests(name))
+    def run(req):
+        check_api(name, req)
+
+    run()
+
+
+def test_json_text_in_json_text_out():
+    """call_json (what the page's worker calls) with text that is not JSON, or is JSON of junk."""
+
+    @ROBUST
+    @given(st.one_of(st.text(max_size=40), st.sampled_from(
+        ["", "{", "[1,", "NaN", "{\"a\": NaN}", "{\"value_V\": Infinity, \"from\": \"SCE\", \"to\": \"SHE\"}",
+         "1" * 5000, "{\"value_V\": " + "1" * 5000 + ", \"from\": \"SCE\", \"to\": \"SHE\"}", "\ufeff{}",
+         "{\"a\": \"Zn2+/Zn\", \"b\": \"Cu2+/Cu\", \"temp_C\": 1e999}", "[[[[[[[[[[]]]]]]]]]]" * 3,
+         "{\"id\": \"Zn2+/Zn\", \"id\": \"Cu2+/Cu\"}", "\"Zn2+/Zn\"", "null"])),
+           st.sampled_from(sorted(FIELDS)))
+    def run(text, name):
+        out_text = api.call_json(name, text)
+        out = json.loads(out_text, parse_constant=lambda c: pytest.fail(f"{c} in the JSON text"))
+        assert isinstance(out["ok"], bool)
+        if not out["ok"]:
+            assert out["error"]["field"] and "\n" not in out["error"]["message"]
+        _count("api call_json", not out["ok"])
+
+    run()
+
+
+def test_unknown_entry_point():
+    for name in ("", "nope", None, 3, "couple ", "COUPLE", "__import__"):
+        out = api.call(name, {})
+        assert out == {"ok": False, "error": {"field": "calculation", "message": out["error"]["message"]}}
+        assert "one of" in out["error"]["message"]
+
+
+# ---------------------------------------------------------------------------- the command line
+
+def run_cli(argv):
+    """cli.main(argv) in this process: (exit status, stdout, stderr)."""
+    out, err = io.StringIO(), io.StringIO()
+    with contextlib.redirect_stdout(out), contextlib.redirect_stderr(err):
+        try:
+            code = cli.main(list(argv))
+        except SystemExit as exc:  # argparse's error path exits with 2
+            code = exc.code
+    return code, out.getvalue(), err.getvalue()
+
+
+def check_cli(label, argv, json_out=False):
+    code, out, err = run_cli(argv)
+    assert "Traceback" not in out + err
+    assert code in (0, 2), (argv, code, err)
+    if code == 0:
+        assert err == "", (argv, err)
+        assert out.strip(), argv
+        if json_out:
+            res = json.loads(out, parse_constant=lambda c: pytest.fail(f"{c} in the JSON output of {argv}"))
+            assert isinstance(res, dict) and "data_version" in res
+    else:
+        assert out == "", (argv, out)
+        assert err.startswith("couplewise: ") and err.endswith("\n") and err.count("\n") == 1, (argv, err)
+        assert len(err) <= 2000
+    _count(f"cli {label}", code != 0)
+    return code, out, err
+
+
+ARG_TEXT = st.one_of(st.text(max_size=12), st.sampled_from(NUMBER_TEXT + WEIRD_TEXT))
+
+
+def num_arg(lo, hi):
+    return st.one_of(st.floats(lo, hi, allow_nan=False).map(repr), st.integers(int(lo), int(hi)).map(str),
+                     st.sampled_from(NUMBER_TEXT), st.sampled_from(["1e308", "-1e308", "5e-324", "1" + "0" * 400]),
+                     st.text(max_size=6))
+
+
+def arg_id(pool):
+    return st.one_of(st.sampled_from(pool), st.sampled_from(pool), st.sampled_from(pool).map(str.lower), ARG_TEXT)
+
+
+def pairs(keys, lo, hi):
+    """SPECIES=VALUE arguments, some malformed."""
+    good = st.builds(lambda k, v: f"{k}={v}", st.sampled_from(keys), num_arg(lo, hi))
+    return st.one_of(good, good, ARG_TEXT, st.builds(lambda k: f"{k}=", st.sampled_from(keys)))
+
+
+def options(spec):
+    """A list of option arguments: each (flag, value strategy or None for a switch) maybe present."""
+    items = [st.one_of(st.just([]), (st.just([flag]) if val is None else val.map(lambda v, f=flag: [f, v])))
+             for flag, val in spec]
+    return st.tuples(*items).map(lambda groups: [a for g in groups for a in g]) if items else st.just([])
+
+
+COND_OPTS = [
+    ("--temp", num_arg(-5, 105)), ("--activity", pairs(SPECIES_KEYS, 1e-14, 20)),
+    ("--activity", pairs(SPECIES_KEYS, 1e-14, 20)), ("--molality", pairs(SPECIES_KEYS, 1e-14, 6)),
+    ("--ionic-strength", num_arg(0, 6)), ("--env", arg_id(ENV_IDS)),
+    ("--model", st.one_of(st.sampled_from(list(VALID_I_MAX)), ARG_TEXT)), ("--pH", num_arg(-3, 17)),
+    ("--pressure", pairs(["O2", "H2", "Cl2"], 1e-9, 50)), ("--json", None),
+]
+
+COMMANDS = {
+    "electrode": st.tuples(arg_id(HALF_IDS).map(lambda x: [x]), options(COND_OPTS)),
+    "couple": st.tuples(st.tuples(arg_id(HALF_IDS), arg_id(HALF_IDS)).map(list), options(COND_OPTS)),
+    "convert": st.tuples(num_arg(-12, 12).map(lambda x: [x]),
+                         options([("--from", arg_id(REF_IDS)), ("--to", arg_id(REF_IDS)), ("--temp", num_arg(-5, 105)),
+                                  ("--pH", num_arg(-3, 17)), ("--json", None)])),
+    "activity": st.tuples(arg_id(ION_NAMES).map(lambda x: [x]),
+                          options([("--ionic-strength", num_arg(0, 6)),
+                                   ("--model", st.one_of(st.sampled_from(list(VALID_I_MAX)), ARG_TEXT)),
+                                   ("--temp", num_arg(-5, 105)), ("--json", None)])),
+    "joint": st.tuples(st.tuples(arg_id(MATERIAL_IDS), arg_id(MATERIAL_IDS)).map(list),
+                       options([("--env", arg_id(ENV_IDS)), ("--area-ratio", num_arg(1e-5, 1e5)), ("--json", None)])),
+    "matrix": st.tuples(st.just([]), options([
+        ("--env", arg_id(ENV_IDS)),
+        ("--materials", st.one_of(st.lists(arg_id(MATERIAL_IDS), max_size=4).map(",".join), ARG_TEXT)),
+        ("--csv", None), ("--json", None)])),
+    "rate": st.tuples(st.just([]), options([("--material", arg_id(MATERIAL_IDS)),
+                                            ("--current-density", num_arg(0, 1e5)), ("--json", None)])),
+}
+assert sorted(COMMANDS) == sorted(api.ENTRY_POINTS), "every calculation command has an argument strategy here"
+
+
+@pytest.mark.parametrize("command", sorted(COMMANDS))
+def test_command_exits_0_or_2_with_one_line(command):
+    @ROBUST
+    @given(COMMANDS[command], st.randoms(use_true_random=False))
+    def run(parts, rnd):
+        positional, opts = parts
+        # options may come before or after the positional arguments, as a user types them
+        argv = [command] + (opts + positional if rnd.random() < 0.3 and not any(
+            p.startswith("-") for p in positional) else positional + opts)
+        check_cli(command, argv, json_out="--json" in opts and "--csv" not in opts)
+
+    run()
+
+
+def test_command_line_junk():
+    """Whatever the argument list, exit 0 or 2 and one line; never a traceback."""
+
+    @ROBUST
+    @given(st.lists(st.one_of(st.sampled_from(sorted(COMMANDS) + ["data", "check", "--json", "--temp", "--env",
+                                                                  "--from", "--to", "--", "-", "---"]),
+                              ARG_TEXT), max_size=6))
+    def run(argv):
+        assume(not any(a in ("-h", "--help") or a.startswith("--h") or a.startswith("-h") for a in argv))
+        assume(argv[:2] != ["data", "check"])  # the data folder check has a test of its own
+        code, out, err = run_cli(argv)
+        assert "Traceback" not in out + err
+        assert code in (0, 1, 2), (argv, code)
+        if code == 2:
+            assert out == "" or argv == [] or argv[0] not in COMMANDS, (argv, out)
+            lines = err.splitlines()
+            assert len(lines) <= 1 or "usage:" in out, (argv, err)
+        _count("cli junk arguments", code != 0)
+
+    run()
+
+
+def test_data_check_with_bad_folder_arguments(tmp_path):
+    """``couplewise data check DIR`` with DIR missing, a file, empty, unicode: a message, exit 1 or 2."""
+    afile = tmp_path / "a-file.yaml"
+    afile.write_text("half_reactions: []\n", encoding="utf-8")
+    empty = tmp_path / "empty"
+    empty.mkdir()
+    for arg in [str(tmp_path / "missing"), str(afile), str(empty), str(tmp_path / "ŋ-ünïcode"), " ",
+                "\u0000" if False else "nul-free", str(tmp_path / ("x" * 200))]:
+        code, out, err = run_cli(["data", "check", arg])
+        assert "Traceback" not in out + err
+        assert code in (1, 2), (arg, code, out, err)
+        lines = [ln for ln in out.splitlines() if ln.strip()]
+        assert lines and all(ln.count(":") >= 3 for ln in lines), (arg, out)
+        assert "problem(s)" in err
+        _count("cli data check", True)
+    for extra in (["data"], ["data", "nope"], ["data", "check", "a", "b"]):
+        code, out, err = run_cli(extra)
+        assert code == 2 and err.count("\n") == 1 and "Traceback" not in err, (extra, err)
+        _count("cli data check", True)
+
+
+# ---------------------------------------------------------------------------- extreme but valid input
+
+def ok(name, req):
+    out = check_api(name, req)
+    assert out["ok"], (req, out)
+    return out["result"]
+
+
+def warning_text(res, field_prefix=""):
+    return " | ".join(w["message"] for w in res["warnings"] if str(w.get("field") or "").startswith(field_prefix))
+
+
+@pytest.mark.parametrize("temp", [0, 0.0, 100, 100.0])
+def test_ends_of_the_temperature_range(temp):
+    """0 and 100 °C are accepted by every temperature-dependent entry point; just outside is refused."""
+    e = ok("electrode", {"id": "Zn2+/Zn", "temp_C": temp, "activities": {"Zn2+": 1}})
+    assert e["temp_C"] == temp
+    c = ok("couple", {"a": "Zn2+/Zn", "b": "Cu2+/Cu", "temp_C": temp})
+    assert c["temp_C"] == temp and c["anode"] == "Zn2+/Zn"
+    v = ok("convert", {"value_V": -0.8, "from": "SCE", "to": "SHE", "temp_C": temp})
+    assert v["temp_C"] == temp
+    a = ok("activity", {"species": "Zn2+", "ionic_strength": 0.01, "temp_C": temp})
+    assert 0 < a["gamma"] < 1
+    # the RHE at the ends: E = −(ln10·R·T/F)·pH (Nernst equation; CODATA 2018 R, F: common practice)
+    r = ok("convert", {"value_V": 0.0, "from": "RHE", "to": "SHE", "temp_C": temp, "pH": 7})
+    assert r["value_V"] == pytest.approx(-nernst_slope(temp + T_ZERO_C) * 7, abs=1e-12)
+    for bad in (-1e-9, 100.000001):
+        for name, req in (("electrode", {"id": "Zn2+/Zn"}), ("convert", {"value_V": 0, "from": "SCE", "to": "SHE"}),
+                          ("activity", {"species": "Zn2+", "ionic_strength": 0.01})):
+            out = api.call(name, {**req, "temp_C": bad})
+            assert not out["ok"] and out["error"]["field"] == "temp_C"
+            assert "0 to 100 °C" in out["error"]["message"]
+
+
+def test_temperature_outside_a_records_stated_range_is_warned():
+    """Where a record states a narrower validity than 0-100 °C, the ends of the range warn by name."""
+    warned = 0
+    for rec in _B["reference_electrodes"]:
+        valid = (rec.get("temperature") or {}).get("valid_C")
+        if not valid:
+            continue
+        for temp in (0, 100):
+            res = ok("convert", {"value_V": 0.1, "from": rec["id"], "to": "SHE", "temp_C": temp})
+            text = warning_text(res, "temp_C")
+            inside = valid[0] - 1e-9 <= temp <= valid[1] + 1e-9
+            if inside:
+                assert "outside the range" not in text, (rec["id"], temp, text)
+            else:
+                assert "outside the range" in text and rec["id"] in text and "extrapolated" in text, (rec["id"], text)
+                warned += 1
+    for rec in _B["half_reactions"]:
+        valid = rec.get("valid_C")
+        if not valid:
+            continue
+        for temp in (0, 100):
+            res = ok("electrode", {"id": rec["id"], "temp_C": temp})
+            text = warning_text(res, "temp_C")
+            if not valid[0] - 1e-9 <= temp <= valid[1] + 1e-9:
+                assert "outside the range" in text and rec["id"] in text, (rec["id"], text)
+                warned += 1
+    assert warned, "the dataset has no record whose stated range ends inside 0-100 °C: nothing was checked"
+
+
+@pytest.mark.parametrize("a", [1e-12, 10.0])
+def test_activity_at_the_ends_of_the_dilute_range(a):
+    """a(Zn2+) = 1e-12 and 10 give the Nernst value; 10 is the last activity without a warning."""
+    res = ok("electrode", {"id": "Zn2+/Zn", "activities": {"Zn2+": a}})
+    # Nernst: E = E° − (ln10·RT/2F)·log10(1/a) (common practice)
+    assert res["potential_V"] == pytest.approx(res["standard_potential_V"] + nernst_slope(298.15) / 2 * math.log10(a),
+                                               abs=1e-12)
+    assert "far outside the dilute" not in warning_text(res)
+    above = ok("electrode", {"id": "Zn2+/Zn", "activities": {"Zn2+": 10.000001}})
+    text = warning_text(above, "activities.Zn2+")
+    assert "far outside the dilute solutions" in text and "a(Zn2+)" in text
+
+
+def test_activity_limits_and_zero_or_negative_activities():
+    res = ok("electrode", {"id": "Zn2+/Zn", "activities": {"Zn2+": ACTIVITY_MAX}})
+    assert "far outside the dilute" in warning_text(res, "activities.Zn2+")
+    for bad in (0, -1e-12, -1, ACTIVITY_MAX * 1.0001, math.nan, math.inf, -math.inf):
+        out = api.call("electrode", {"id": "Zn2+/Zn", "activities": {"Zn2+": bad}})
+        assert not out["ok"] and out["error"]["field"] == "activities.Zn2+", (bad, out)
+        assert "an activity above 0" in out["error"]["message"]
+
+
+def test_tiny_values_that_underflow_give_an_error_or_a_finite_result():
+    """Molalities and water activities so small that a product underflows to 0 never reach log10(0)."""
+    for req in ({"id": "Zn2+/Zn", "molalities": {"Zn2+": 5e-324}, "ionic_strength": 0.5},
+                {"id": "O2/OH-", "activities": {"H2O": 5e-324}, "pH": 2},
+                {"id": "O2/OH-", "activities": {"H2O": 1e-300}, "pH": 0},
+                {"id": "Zn2+/Zn", "activities": {"Zn2+": 5e-324}}):
+        check_api("electrode", req)
+
+
+@pytest.mark.parametrize("model", sorted(VALID_I_MAX))
+def test_ionic_strength_at_each_models_limit(model):
+    """At the limit of its range a model gives γ without a warning; just above, the warning names the
+    model, its limit and that the value is an extrapolation.
+
+    Ranges: Stumm & Morgan, Aquatic Chemistry, 3rd ed. (1996), Table 3.3 (from memory), as in
+    calc/activity.py."""
+    vmax = VALID_I_MAX[model]
+    at = ok("activity", {"species": "Na+", "ionic_strength": vmax, "model": model})
+    assert at["valid_I_max"] == vmax and at["ionic_strength"] == vmax
+    assert "above the range" not in warning_text(at)
+    assert 0 < at["gamma"] <= 1
+    above = ok("activity", {"species": "Na+", "ionic_strength": vmax * 1.01, "model": model})
+    text = warning_text(above, "ionic_strength")
+    if model == "ideal":
+        # γ = 1 at any ionic strength: the warning still says the model is out of its range
+        assert above["gamma"] == 1.0
+    assert f"above the range of the {model} model" in text and "extrapolation" in text, text
+    # the same limit reached through a molality in an electrode calculation
+    el = ok("electrode", {"id": "Na+/Na", "molalities": {"Na+": 0.001}, "ionic_strength": vmax * 1.01,
+                          "model": model})
+    assert f"above the range of the {model} model" in warning_text(el, "ionic_strength")
+
+
+def test_highest_ionic_strength_accepted_and_refused():
+    from calc.activity import I_HARD_MAX
+
+    res = ok("activity", {"species": "Cl-", "ionic_strength": I_HARD_MAX})
+    assert "Pitzer" in warning_text(res, "ionic_strength")
+    out = api.call("activity", {"species": "Cl-", "ionic_strength": I_HARD_MAX * 1.0001})
+    assert not out["ok"] and out["error"]["field"] == "ionic_strength"
+
+
+def test_pressure_and_ph_ends():
+    res = ok("electrode", {"id": "O2/H2O", "pressures": {"O2": PRESSURE_MAX_ATM}, "pH": 16})
+    assert "fugacity" in warning_text(res, "pressures.O2") and "outside 0-14" in warning_text(res, "pH")
+    res = ok("electrode", {"id": "H+/H2", "pH": -2})
+    assert "outside 0-14" in warning_text(res, "pH")
+    for bad in (-2.0001, 16.0001):
+        out = api.call("electrode", {"id": "H+/H2", "pH": bad})
+        assert not out["ok"] and out["error"]["field"] == "pH"
+
+
+def test_huge_values_and_ions_no_double_holds():
+    """Integers of hundreds or thousands of digits and absurd ion charges give an error, not a crash
+    or a silent zero."""
+    for name, req, field in (
+            ("convert", {"value_V": 10 ** 5000, "from": "SCE", "to": "SHE"}, "value_V"),
+            ("convert", {"value_V": 10 ** 400, "from": "SCE", "to": "SHE"}, "value_V"),
+            ("rate", {"material": "zinc", "current_density_uA_per_cm2": 10 ** 400}, "current_density_uA_per_cm2"),
+            ("joint", {"a": "zinc", "b": "copper", "env": "seawater-flowing", "area_ratio": 10 ** 400}, "area_ratio"),
+            ("activity", {"species": "Zn" + "9" * 5000 + "+", "ionic_strength": 0.1}, "species"),
+            ("activity", {"species": "Zn" + "9" * 400 + "+", "ionic_strength": 0.1}, "species"),
+            ("activity", {"species": "Zn" + "9" * 30 + "+", "ionic_strength": 0.1}, "species"),
+            ("activity", {"species": "H" + "9" * 5000 + "+", "ionic_strength": 0.1}, "species"),
+            ("activity", {"species": "Zn2+", "composition": {"Zn" + "9" * 30 + "+": 0.1}}, "species"),
+    ):
+        out = check_api(name, req)
+        assert not out["ok"] and out["error"]["field"].startswith(field), (name, out)
