@@ -35,8 +35,9 @@ def main(site, out, pages):
                 page.goto(srv.url(p))
                 if "calculators" in p:
                     try:
+                        page.wait_for_selector(".cw-runtime[data-stage='ready']", timeout=120_000)
                         page.wait_for_selector(".cw-result > :not(.cw-pending)", timeout=90_000)
-                        page.wait_for_timeout(1500)
+                        page.wait_for_timeout(2500)
                     except Exception as exc:  # noqa: BLE001 - a screenshot of the failure is the point
                         print("no result on", p, exc)
                 name = (p.strip("/").replace("/", "_") or "home") + f"-{label}.png"

@@ -39,6 +39,8 @@ DEFAULT_MODEL = "davies"
 DAVIES_COEFF = 0.3
 #: highest ionic strength accepted at all: the models lose meaning far above 1 mol/kg [mol/kg]
 I_HARD_MAX = 5.0
+#: highest ion charge accepted (free aqueous ions beyond ±4 are rare; common practice) [unitless]
+ION_CHARGE_MAX = 6
 _MODEL_WORDS = "one of ideal, limiting, extended, davies"
 _MODEL_ALIASES = {"dh": "limiting", "debye-huckel": "limiting", "debye-hückel": "limiting",
                   "extended-dh": "extended", "edh": "extended"}
@@ -79,6 +81,9 @@ def ion(species):
         raise InputError("species", species, "an ion such as Zn2+, Cl- or SO4^2-") from None
     if sp.coeff != 1:
         raise InputError("species", species, "one ion without a coefficient, such as Zn2+")
+    if abs(sp.charge) > ION_CHARGE_MAX:
+        raise InputError("species", species, f"an ion with a charge from -{ION_CHARGE_MAX} to +{ION_CHARGE_MAX}",
+                         "the Debye–Hückel models have no meaning for higher charges")
     return sp
 
 

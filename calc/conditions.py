@@ -174,7 +174,7 @@ def _ionic_strength(cond, d):
     I = ionic_strength(comp)
     terms = ionic_strength_terms(comp)
     d.step(f"Ionic strength from {what}", "I = ½·Σ m_i·z_i²", f"I = ½·({terms}) mol/kg", f"I = {fmt(I)} mol/kg")
-    charge = sum(m * ion(s).charge for s, m in comp.items())
+    charge = sum(float(m) * ion(s).charge for s, m in comp.items())
     if abs(charge) > 1e-9:
         d.warn("ionic_strength", f"the ions in {what} are not electrically neutral (Σ m·z = {fmt(charge)} mol/kg): "
                                  "the counter-ions are missing, so I is underestimated; list them (e.g. SO4^2-=0.1) "
@@ -237,6 +237,9 @@ def activities_for(species_list, cond, d, used=None):
             d.cite(s)
         if not any(st["title"].startswith("Debye–Hückel A and B") for st in d.steps) and cond.model != "ideal":
             d.steps.append(res.steps[0])
+        if not res.gamma * m > 0:  # a subnormal molality times γ < 1 rounds to 0
+            raise InputError(f"molalities.{name}", m, "a molality whose activity γ·m is above 0 in double precision "
+                             "(above about 1e-300 mol/kg)")
         d.step(f"Activity of {sp.name} from its molality ({cond.model} model)", "a = γ·m/m°, m° = 1 mol/kg",
                f"γ = {fmt(res.gamma, 5)} at I = {fmt(I_cache[0])} mol/kg; a = {fmt(res.gamma, 5)}·{fmt(m)}",
                f"a({sp.name}) = {fmt(res.gamma * m, 5)}")
@@ -306,6 +309,9 @@ def activities_for(species_list, cond, d, used=None):
                 used.add(("activities", "H2O"))
                 aw = cond.activities["H2O"][1]
             a = aw * 10.0 ** (-pkw - log_aH)
+            if not a > 0:  # a(H2O) so small that a(OH-) rounds to 0
+                raise InputError("activities.H2O", aw, "a water activity for which a(OH-) = Kw·a(H2O)/a(H+) is above 0 "
+                                 "in double precision (about 0.9 to 1 in natural waters)")
             d.step("Activity of OH− from pH and the ion product of water",
                    "a(OH−) = Kw(T)·a(H2O)/a(H+); pKw(T): Bandura & Lvov (2006)",
                    f"pKw({fmt(t)} °C) = {fmt(pkw, 5)}, a(H2O) = {fmt(aw)}; "

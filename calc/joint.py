@@ -25,7 +25,6 @@ anode, so i_a = i_c · A_c/A_a; i_a is turned into a rate by ASTM G102 (:mod:`ca
 
 import csv
 import io
-import math
 from dataclasses import dataclass
 
 from . import rate as g102
@@ -363,7 +362,7 @@ def _area_ratio(value, warnings):
     if value is None:
         return 1.0, False
     allowed = "a cathode-to-anode wetted-area ratio, a finite number above 0"
-    if isinstance(value, bool) or not isinstance(value, (int, float)) or not math.isfinite(value) or value <= 0:
+    if isinstance(value, bool) or not isinstance(value, (int, float)) or not g102.finite(value) or value <= 0:
         raise InputError("area_ratio", value, allowed)
     value = float(value)
     if value > AREA_HIGH or value < AREA_LOW:

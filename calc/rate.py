@@ -252,10 +252,31 @@ def corrosion_rate(current_density_uA_per_cm2, equivalent_weight_g, density_g_cm
     return FaradayRate(i, ew, rho, cr, mr, steps)
 
 
+def finite(value):
+    """True for a finite number that a double holds (an integer beyond ~1.8e308 is not).
+
+    Args:
+        value: an int or float [any unit]
+
+    Returns:
+        True or False
+
+    References:
+        IEEE 754 double precision (common practice).
+
+    >>> finite(1e308), finite(float("inf")), finite(10 ** 400)
+    (True, False, False)
+    """
+    try:
+        return math.isfinite(value)
+    except OverflowError:  # an integer beyond the range of a double
+        return False
+
+
 def _number(field_name, value, allowed, low=None, strict=False):
     if isinstance(value, bool) or not isinstance(value, (int, float)):
         raise InputError(field_name, value, allowed)
-    if not math.isfinite(value):
+    if not finite(value):
         raise InputError(field_name, value, allowed)
     if low is not None and (value <= low if strict else value < low):
         raise InputError(field_name, value, allowed)

@@ -74,6 +74,8 @@ def parse_species(text):
     cm = _CHARGE_CARET_RE.match(body) or _CHARGE_RE.match(body)
     if cm:
         formula = cm.group(1)
+        if len(cm.group(2)) > 3:
+            raise InputError("species", text, "a charge of at most three digits, e.g. Fe3+ or SO4^2-")
         mag = int(cm.group(2)) if cm.group(2) else 1
         charge = mag if cm.group(3) == "+" else -mag
     formula_atoms(formula)  # validates
@@ -95,6 +97,8 @@ def formula_atoms(formula):
     tokens = _TOKEN_RE.findall(formula)
     if "".join(tokens) != formula or not tokens:
         raise InputError("formula", formula, "element symbols with counts, e.g. Fe(OH)3")
+    if any(t.isdigit() and len(t) > 6 for t in tokens):
+        raise InputError("formula", formula, "counts of at most six digits")
     stack = [{}]
     i = 0
     while i < len(tokens):

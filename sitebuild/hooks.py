@@ -9,7 +9,10 @@ Wired in ``mkdocs.yml`` (``hooks: [sitebuild/hooks.py]``). What happens on a bui
    unknown marker fails the build.
 4. ``on_post_build``: the five Pyodide runtime files are copied from ``node_modules/pyodide``
    and a pure-Python wheel of calc (with the same dataset inside) is built with
-   ``pip wheel --no-deps``; ``assets/runtime.json`` tells the page where they are.
+   ``pip wheel --no-deps``; ``assets/runtime.json`` tells the page where they are. Two
+   start-up aids made under Node.js join them: the standard library precompiled to bytecode
+   and a memory snapshot with calc imported (both cached in ``node_modules/.cache``); and the
+   calculators' opening answers are computed under CPython (``assets/data/precomputed.json``).
 """
 
 import datetime
@@ -241,6 +244,12 @@ def on_post_build(config, **kwargs):
     }
     with open(os.path.join(site, "assets", "runtime.json"), "w", encoding="utf-8") as fh:
         json.dump(runtime, fh, indent=1)
+    from sitebuild.precompute import PrecomputeError, write_precomputed
+
+    try:  # the calculators' opening answers, shown while the runtime starts
+        write_precomputed(site, bundle)
+    except PrecomputeError as exc:
+        raise PluginError(str(exc)) from None
     from sitebuild.offline import write_offline_support
 
     write_offline_support(site)  # last: sw.js hashes every other file of the site

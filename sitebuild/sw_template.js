@@ -1,52 +1,101 @@
-// Couplewise service worker (generated at build time from sitebuild/sw_template.js).
-// Precaches the whole built site (pages, runtime, calc wheel, dataset) under one cache named
-// from the build's content hash, so data and calc can never be mixed across versions.
-const VERSION = "__VERSION__";
-const CACHE = "couplewise-" + VERSION;
-const PRECACHE = __PRECACHE__;
+// Couplewise service worker, written at build time from sitebuild/sw_template.js by
+// sitebuild/offline.py. It precaches every file of the built site (pages, search index, the
+// Pyodide runtime, the calc wheel, the dataset) under one cache per version and serves only
+// from that cache, so the data and calc of two versions are never mixed. The cache name
+// carries the site's path, so two copies of the site on one server keep apart.
+const META = __META__; // {data_version, data_date, build, version}: version hashes every file
+const PRECACHE = __PRECACHE__; // [[URL relative to the site root, "sha256-..." of its bytes], ...]
 const SCOPE = new URL("./", self.location).href;
+const PREFIX = "couplewise:" + new URL(SCOPE).pathname + ":";
+const CACHE = PREFIX + META.version;
+const PARALLEL = 6;
+
+async function precache() {
+  const cache = await caches.open(CACHE);
+  const queue = PRECACHE.slice();
+  async function next() {
+    for (let item = queue.shift(); item; item = queue.shift()) {
+      const [path, integrity] = item;
+      const url = new URL(path, SCOPE).href;
+      // Revalidate with the server (never a stale HTTP-cache copy) and check the bytes are this
+      // build's: a server caught between two versions fails the install, which is retried later.
+      let response = await fetch(new Request(url, { cache: "no-cache", integrity, credentials: "same-origin" }));
+      if (!response.ok) throw new Error(url + ": HTTP " + response.status);
+      if (response.redirected) {
+        // A redirected response cannot answer a navigation: keep the body and headers only.
+        response = new Response(await response.blob(), { status: response.status, headers: response.headers });
+      }
+      await cache.put(url, response);
+    }
+  }
+  try {
+    await Promise.all(Array.from({ length: PARALLEL }, next));
+  } catch (err) {
+    await caches.delete(CACHE);
+    throw err;
+  }
+}
 
 self.addEventListener("install", (event) => {
-  event.waitUntil(caches.open(CACHE).then((cache) => cache.addAll(PRECACHE.map((p) => new URL(p, SCOPE).href))));
+  event.waitUntil(precache());
 });
 
 self.addEventListener("activate", (event) => {
   event.waitUntil((async () => {
     for (const name of await caches.keys()) {
-      if (name.startsWith("couplewise-") && name !== CACHE) await caches.delete(name);
+      if (name.startsWith(PREFIX) && name !== CACHE) await caches.delete(name);
     }
     await self.clients.claim();
   })());
 });
 
 self.addEventListener("message", (event) => {
-  if (event.data && event.data.type === "activate-new-version") self.skipWaiting();
-  if (event.data && event.data.type === "version" && event.ports[0]) event.ports[0].postMessage(VERSION);
+  const data = event.data || {};
+  if (data.type === "activate-new-version") self.skipWaiting();
+  else if (data.type === "version" && event.ports[0]) event.ports[0].postMessage(META);
 });
 
+// The cache key of a URL: no query or fragment (calculator pages keep their inputs in the query),
+// folder URLs for index pages.
+function cacheKey(url) {
+  let path = url.pathname;
+  if (path.endsWith("/index.html")) path = path.slice(0, -"index.html".length);
+  return url.origin + path;
+}
+
+function offlinePage() {
+  const html = "<!doctype html><html lang=\"en\"><meta charset=\"utf-8\">" +
+    "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"><title>Not available offline</title>" +
+    "<body style=\"font-family: system-ui, sans-serif; margin: 2rem; max-width: 40rem\">" +
+    "<h1>Not in the offline copy</h1><p>This address is not part of the offline copy of Couplewise, " +
+    "and the server cannot be reached.</p><p><a href=\"" + SCOPE + "\">Open the Couplewise start page</a></p></body></html>";
+  return new Response(html, { status: 503, headers: { "Content-Type": "text/html; charset=utf-8" } });
+}
+
+async function respond(request, url) {
+  const cache = await caches.open(CACHE);
+  const key = cacheKey(url);
+  // ignoreVary: a server that compresses sends "Vary: Accept-Encoding", which is not a reason to
+  // miss the precached copy.
+  let hit = await cache.match(key, { ignoreVary: true });
+  if (hit) return hit;
+  if (!url.pathname.endsWith("/") && !/\.[A-Za-z0-9]+$/.test(url.pathname)) {
+    // A folder without its slash: send the browser to the folder, so relative links resolve.
+    hit = await cache.match(key + "/", { ignoreVary: true });
+    if (hit) return Response.redirect(key + "/" + url.search + url.hash, 301);
+  }
+  try {
+    return await fetch(request);
+  } catch (err) {
+    if (request.mode === "navigate") return offlinePage();
+    throw err;
+  }
+}
+
 self.addEventListener("fetch", (event) => {
-  const req = event.request;
-  if (req.method !== "GET") return;
-  const url = new URL(req.url);
+  const request = event.request;
+  if (request.method !== "GET") return; // only same-origin GETs inside the site are answered
+  const url = new URL(request.url);
   if (url.origin !== self.location.origin || !url.href.startsWith(SCOPE)) return;
-  event.respondWith((async () => {
-    const cache = await caches.open(CACHE);
-    let hit = await cache.match(req, { ignoreSearch: true, ignoreVary: true });
-    if (!hit && url.pathname.endsWith("/index.html")) {
-      hit = await cache.match(url.href.replace(/index\.html(\?.*)?$/, ""), { ignoreSearch: true });
-    }
-    if (!hit && !url.pathname.endsWith("/") && !/\.[a-z0-9]+$/i.test(url.pathname)) {
-      hit = await cache.match(url.origin + url.pathname + "/", { ignoreSearch: true });
-    }
-    if (hit) return hit;
-    try {
-      return await fetch(req);
-    } catch (err) {
-      if (req.mode === "navigate") {
-        const home = await cache.match(SCOPE);
-        if (home) return home;
-      }
-      throw err;
-    }
-  })());
+  event.respondWith(respond(request, url));
 });

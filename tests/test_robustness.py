@@ -126,87 +126,115 @@ JUNK = st.recursive(BASE_JUNK, lambda inner: st.one_of(
     st.lists(inner, max_size=3), st.dictionaries(st.text(max_size=6), inner, max_size=3)), max_leaves=6)
 
 
-def number(lo, hi):
-    """A number field: mostly in or near [lo, hi], else edge values, non-finite, text or junk."""
-    return st.one_of(
-        st.floats(lo, hi, allow_nan=False), st.floats(lo, hi, allow_nan=False),
-        st.integers(int(max(lo, -10 ** 6)), int(min(hi, 10 ** 6))),
-        st.floats(allow_nan=True, allow_infinity=True),
-        st.sampled_from(NONFINITE + EDGE_NUMBERS), HUGE_INTS, st.sampled_from(NUMBER_TEXT), JUNK)
+class F:
+    """One request field: ``good`` draws values the field accepts (often at its edges), ``bad`` draws
+    values it must refuse or that may be refused (wrong type, out of range, non-finite, junk)."""
+
+    def __init__(self, good, bad):
+        self.good, self.bad = good, bad
+
+    @property
+    def any(self):
+        return st.one_of(self.good, self.bad)
+
+
+def number(lo, hi, edges=()):
+    """A number field accepted from lo to hi; ``edges``: values at or just inside its limits."""
+    inside = st.one_of(st.floats(lo, hi, allow_nan=False), st.integers(math.ceil(max(lo, -10 ** 6)), math.floor(min(hi, 10 ** 6))),
+                       st.sampled_from([lo, hi, *edges]), st.floats(lo, hi, allow_nan=False).map(repr))
+    bad = st.one_of(st.floats(allow_nan=True, allow_infinity=True), st.sampled_from(NONFINITE + EDGE_NUMBERS),
+                    HUGE_INTS, st.sampled_from(NUMBER_TEXT), JUNK,
+                    st.floats(hi, 1e308, exclude_min=True), st.floats(-1e308, lo, exclude_max=True))
+    return F(inside, bad)
 
 
 def ident(pool):
-    """An id field: a real id, one written differently, a near miss, weird text, junk."""
+    """An id field: a real id or one written differently; bad: a near miss, weird text, junk."""
     real = st.sampled_from(pool)
-    return st.one_of(
-        real, real, real,
-        real.map(str.upper), real.map(lambda s: s.replace("-", " ")), real.map(lambda s: s[:-1] or "x"),
-        real.map(lambda s: s + "\u0000"), st.text(max_size=15), st.sampled_from(WEIRD_TEXT), JUNK)
+    good = st.one_of(real, real, real.map(str.upper), real.map(str.lower), real.map(lambda s: f"  {s} "))
+    bad = st.one_of(real.map(lambda s: s[:-1] or "x"), real.map(lambda s: s + "\u0000"), st.text(max_size=15),
+                    st.sampled_from(WEIRD_TEXT), JUNK)
+    return F(good, bad)
 
 
-def mapping(keys, lo, hi):
-    """A {species: value} field: plausible keys and values, weird keys, or junk instead of a mapping."""
-    key = st.one_of(st.sampled_from(keys), st.sampled_from(keys).map(lambda k: k + "(aq)"),
-                    st.text(max_size=8), st.sampled_from(WEIRD_TEXT[:12]))
-    return st.one_of(st.dictionaries(key, number(lo, hi), max_size=4), st.dictionaries(key, number(lo, hi), max_size=4),
-                     JUNK)
+def mapping(keys, value):
+    """A {species: value} field; bad: weird keys, bad values, junk instead of a mapping."""
+    key = st.sampled_from(keys)
+    good = st.dictionaries(key, value.good, max_size=3)
+    bad_key = st.one_of(st.text(max_size=8), st.sampled_from(WEIRD_TEXT[:12]), key.map(lambda k: k + "(s)"))
+    bad = st.one_of(st.dictionaries(key, value.bad, min_size=1, max_size=3),
+                    st.dictionaries(bad_key, value.any, min_size=1, max_size=3), JUNK)
+    return F(good, bad)
 
 
 SPECIES_KEYS = ION_NAMES + ["O2", "H2", "Cl2", "H2O", "H2O2", "H2S", "Br2", "I2"]
+MODEL = F(st.sampled_from(list(VALID_I_MAX) + ["Davies", "DAVIES", "dh", "extended-dh", " limiting "]),
+          st.one_of(st.sampled_from(["truesdell-jones", "pitzer", "", "sit"]), JUNK))
 CONDITIONS = {
-    "temp_C": number(-5, 105),
-    "activities": mapping(SPECIES_KEYS, 1e-14, 20),
-    "molalities": mapping(SPECIES_KEYS, 1e-14, 6),
-    "pressures": mapping(["O2", "H2", "Cl2", "N2"], 1e-9, 50),
-    "ionic_strength": number(0, 6),
+    "temp_C": number(0, 100, [1e-9, 99.999999, 25]),
+    "activities": mapping(SPECIES_KEYS, F(number(5e-324, ACTIVITY_MAX, [1e-12, 10, 10.000001]).good,
+                                          st.one_of(st.sampled_from([0, -0.0, -1e-12, -1]), number(0, 1).bad))),
+    "molalities": mapping(SPECIES_KEYS, F(number(5e-324, 50, [1e-12, 0.001, 0.5]).good,
+                                          st.one_of(st.sampled_from([0, -1]), number(0, 50).bad))),
+    "pressures": mapping(["O2", "H2", "Cl2", "N2"], F(number(5e-324, PRESSURE_MAX_ATM, [0.21, 10.5]).good,
+                                                     st.one_of(st.just(0), number(0, 1000).bad))),
+    "ionic_strength": number(0, 5, list(VALID_I_MAX.values())),
     "env": ident(ENV_IDS),
-    "composition": mapping(ION_NAMES, 0, 6),
-    "model": st.one_of(st.sampled_from(list(VALID_I_MAX) + ["Davies", "dh", "truesdell-jones", "pitzer", ""]), JUNK),
-    "pH": number(-3, 17),
+    "composition": mapping(ION_NAMES, number(0, 50, [0.1, 0.7])),
+    "model": MODEL,
+    "pH": number(-2, 16, [0, 14, 7]),
 }
+SIDE = {k: CONDITIONS[k] for k in ("activities", "molalities", "pressures", "pH")}
 
-#: entry point -> (required fields, optional fields); each field -> strategy of values
+#: entry point -> (required fields, optional fields), each a field name -> F
 FIELDS = {
     "electrode": ({"id": ident(HALF_IDS)}, dict(CONDITIONS)),
     "couple": ({"a": ident(HALF_IDS), "b": ident(HALF_IDS)},
-               {**CONDITIONS, "a_conditions": st.one_of(st.fixed_dictionaries({}, optional={
-                   "activities": CONDITIONS["activities"], "pH": CONDITIONS["pH"],
-                   "pressures": CONDITIONS["pressures"], "temp_C": CONDITIONS["temp_C"]}), JUNK),
-                "b_conditions": st.one_of(st.fixed_dictionaries({}, optional={
-                    "activities": CONDITIONS["activities"], "molalities": CONDITIONS["molalities"],
-                    "pH": CONDITIONS["pH"]}), JUNK)}),
-    "convert": ({"value_V": number(-12, 12), "from": ident(REF_IDS), "to": ident(REF_IDS)},
+               {**CONDITIONS,
+                "a_conditions": F(st.fixed_dictionaries({}, optional={k: f.good for k, f in SIDE.items()}),
+                                  st.one_of(st.fixed_dictionaries({}, optional={k: f.any for k, f in SIDE.items()}),
+                                            st.fixed_dictionaries({"temp_C": CONDITIONS["temp_C"].good}), JUNK)),
+                "b_conditions": F(st.fixed_dictionaries({}, optional={k: f.good for k, f in SIDE.items()}), JUNK)}),
+    "convert": ({"value_V": number(-10, 10, [-0.85, 0]), "from": ident(REF_IDS), "to": ident(REF_IDS)},
                 {"temp_C": CONDITIONS["temp_C"], "pH": CONDITIONS["pH"]}),
     "activity": ({"species": ident(ION_NAMES)},
-                 {"ionic_strength": number(0, 6), "composition": CONDITIONS["composition"], "env": ident(ENV_IDS),
-                  "model": CONDITIONS["model"], "temp_C": CONDITIONS["temp_C"], "size_angstrom": number(0, 20),
-                  "molality": number(0, 6)}),
+                 {"ionic_strength": CONDITIONS["ionic_strength"], "composition": CONDITIONS["composition"],
+                  "env": ident(ENV_IDS), "model": MODEL, "temp_C": CONDITIONS["temp_C"],
+                  "size_angstrom": number(1, 15, [3, 9]), "molality": number(5e-324, 50, [1e-12, 1])}),
     "joint": ({"a": ident(MATERIAL_IDS), "b": ident(MATERIAL_IDS), "env": ident(ENV_IDS)},
-              {"area_ratio": number(1e-5, 1e5)}),
+              {"area_ratio": number(5e-324, 1e300, [1e-3, 1, 1000, 1e6])}),
     "matrix": ({"env": ident(ENV_IDS)},
-               {"materials": st.one_of(st.lists(ident(MATERIAL_IDS), max_size=6), st.lists(ident(MATERIAL_IDS),
-                                                                                           min_size=1, max_size=3),
-                                       JUNK)}),
-    "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e5)}, {}),
+               {"materials": F(st.lists(ident(MATERIAL_IDS).good, min_size=1, max_size=8),
+                               st.one_of(st.just([]), st.lists(ident(MATERIAL_IDS).any, min_size=1, max_size=4),
+                                         JUNK))}),
+    "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e300, [1e4, 1e4 + 1])}, {}),
 }
 assert sorted(FIELDS) == sorted(api.ENTRY_POINTS), "every entry point has a request strategy here"
 
 
 @st.composite
 def requests(draw, name):
-    """A request for one entry point: valid-looking, then possibly broken in one or more ways."""
+    """A request for one entry point: all fields acceptable (a third of the cases), one field bad,
+    a field missing, unknown or null, every field good or bad at random, or no object at all."""
     required, optional = FIELDS[name]
-    kind = draw(st.integers(0, 19))
-    if kind == 0:  # not an object at all, or an object of junk
+    mode = draw(st.integers(0, 19))
+    if mode == 0:  # not an object, or an object of junk
         return draw(st.one_of(JUNK, st.dictionaries(st.text(max_size=8), JUNK, max_size=4)))
-    req = draw(st.fixed_dictionaries(required, optional=optional))
-    if kind == 1 and req:  # a required field missing
-        req.pop(draw(st.sampled_from(sorted(req))))
-    elif kind == 2:  # an unknown field
-        req[draw(st.one_of(st.text(max_size=10), st.sampled_from(["temp", "T", "Temp_C", "a\nb", "__proto__"])))] = \
+    chosen = draw(st.lists(st.sampled_from(sorted(optional)), unique=True, max_size=len(optional))) if optional else []
+    fields = {**required, **{k: optional[k] for k in chosen}}
+    if mode <= 7:  # every field acceptable: the calculation runs (or refuses a combination)
+        return {k: draw(f.good) for k, f in fields.items()}
+    if mode <= 13:  # one field bad
+        bad = draw(st.sampled_from(sorted(fields)))
+        return {k: draw(f.bad if k == bad else f.good) for k, f in fields.items()}
+    req = {k: draw(f.any) for k, f in fields.items()}
+    if mode == 14 and req:  # a required field missing
+        req.pop(draw(st.sampled_from(sorted(required))))
+    elif mode == 15:  # an unknown field
+        req[draw(st.one_of(st.text(max_size=10), st.sampled_from(["temp", "T", "Temp_C", "a\nb", "__proto__", ""])))] = \
             draw(JUNK)
-    elif kind == 3 and req:  # a field given as null
-        req[draw(st.sampled_from(sorted(req)))] = None
+    elif mode == 16:  # a field given as null
+        req[draw(st.sampled_from(sorted(fields)))] = None
     return req
 
 

@@ -84,6 +84,7 @@ export function select(options, value) {
 
 // The frame shared by all calculators: status line, form, result, derivation, print button.
 export function frame(root, title) {
+  precomputedAnswers(); // start the small download while the form is built
   const status = h("div", { class: "cw-runtime", role: "status", "aria-live": "polite" });
   const formBox = h("form", { class: "cw-form", novalidate: true, onsubmit: (e) => e.preventDefault() });
   const formMsg = h("div", { class: "cw-form-msg", role: "alert" });
@@ -171,25 +172,78 @@ export function writeUrl(params) {
   history.replaceState(history.state, "", url.href);
 }
 
-// Debounced recalculation with stale-result greying and field errors.
+// Answers to each calculator's opening request, computed at build time (sitebuild/precompute.py),
+// keyed by calculator name and canonical request JSON. Fetched once, as a page's form is built.
+let precomputedPromise = null;
+export function precomputedAnswers() {
+  if (!precomputedPromise) {
+    precomputedPromise = fetch(new URL("assets/data/precomputed.json", siteRoot))
+      .then((r) => (r.ok ? r.json() : null)).catch(() => null);
+  }
+  return precomputedPromise;
+}
+
+// Canonical JSON: object keys sorted, no spaces (mirrors canonical() in sitebuild/precompute.py).
+export function canonical(v) {
+  if (Array.isArray(v)) return "[" + v.map(canonical).join(",") + "]";
+  if (v && typeof v === "object") return "{" + Object.keys(v).sort().map((k) => JSON.stringify(k) + ":" + canonical(v[k])).join(",") + "}";
+  return JSON.stringify(v === undefined ? null : v);
+}
+
+function runtimeStage() {
+  let stage = "idle";
+  onRuntime((rt) => { stage = rt.stage; })();
+  return stage;
+}
+
+// Recalculation with stale-result greying and field errors. A change is sent at once when no
+// calculation is running, otherwise the latest one waits for the running one (no fixed delay).
+// The first request of a page shows the build-time answer at once when it is exactly the
+// precomputed request, marked as such, until the runtime's own answer replaces it.
 export function runner(ui, name, onResult, fieldFor) {
   let ticket = 0;
-  let timer = null;
   let hasResult = false;
+  let first = true;
+  let early = null;
+  let running = null;
+  let queued = null;
   function setStale(stale) { ui.result.classList.toggle("cw-stale", stale && hasResult); }
+  async function showEarly(my, request, answer) {
+    let settled = false;
+    answer.then(() => { settled = true; });
+    if (runtimeStage() === "ready") return;
+    const data = await precomputedAnswers();
+    const result = data && data.answers && data.answers[name] && data.answers[name][canonical(request)];
+    if (!result || settled || my !== ticket) return;
+    hasResult = true;
+    onResult(result);
+    early = h("p", { class: "cw-early-note", role: "status" },
+      h("span", { class: "cw-badge", text: "build time" }), " Computed at build time for these inputs, refining…");
+    ui.result.classList.add("cw-early");
+    ui.result.prepend(early);
+    performance.mark("cw-early-painted");
+  }
   async function go(request, clientErrors) {
     const my = ++ticket;
     if (clientErrors) { setStale(true); return; }
     ui.result.setAttribute("aria-busy", "true");
-    const out = await calculate(name, request);
+    const answer = calculate(name, request);
+    if (first) { first = false; await showEarly(my, request, answer); }
+    const out = await answer;
     if (my !== ticket) return;
     ui.result.removeAttribute("aria-busy");
     if (out.ok) {
       ui.formMsg.textContent = "";
       hasResult = true;
+      early = null;
+      ui.result.classList.remove("cw-early");
       onResult(out.result);
       setStale(false);
       performance.mark("cw-result-painted");
+    } else if (early && out.error.field === "runtime") {
+      early.replaceChildren(h("span", { class: "cw-badge", text: "build time" }),
+        " Computed at build time for these inputs; the calculation runtime could not start, so other inputs cannot be calculated here.");
+      ui.formMsg.textContent = out.error.message;
     } else {
       const f = fieldFor ? fieldFor(out.error.field) : null;
       if (f) f.setError(out.error.message);
@@ -198,13 +252,21 @@ export function runner(ui, name, onResult, fieldFor) {
       if (!hasResult) fill(ui.result, h("p", { class: "cw-pending", text: "No result yet: correct the input above." }));
     }
   }
-  return {
-    schedule(request, clientErrors) {
-      clearTimeout(timer);
-      timer = setTimeout(() => go(request, clientErrors), 60);
-    },
-    now: go,
-  };
+  async function pump() {
+    while (queued) {
+      const [request, clientErrors] = queued;
+      queued = null;
+      running = go(request, clientErrors);
+      await running;
+    }
+    running = null;
+  }
+  function schedule(request, clientErrors) {
+    queued = [request, clientErrors];
+    if (running) ticket++; // the running answer is for older inputs: do not paint it
+    else pump();
+  }
+  return { schedule, now: schedule };
 }
 
 // ---------------------------------------------------------------------------------------
@@ -353,7 +415,7 @@ async function coupleCalc(root) {
     ephBox.replaceChildren(lineChart({
       title: "E–pH: water stability lines and the two couples", xLabel: "pH", yLabel: "E (V vs SHE)",
       desc: "Between the dotted H+/H2 and O2/H2O lines water is stable; a couple whose line lies below the H+/H2 line can reduce water to hydrogen at that pH.",
-      series, marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
+      series, legendRight: true, marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
     }));
   }
 

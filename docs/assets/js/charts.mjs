@@ -55,9 +55,23 @@ export function lineChart(opts) {
   opts.series.forEach((se, i) => {
     const d = se.points.map((p, j) => (j ? "L" : "M") + X(p[0]).toFixed(1) + " " + Y(p[1]).toFixed(1)).join(" ");
     svg.append(s("path", { d, class: "cw-line cw-line-" + i, "stroke-dasharray": se.dash || (i ? "6 4" : "none") }));
-    const last = se.points[se.points.length - 1];
-    if (last && se.name) svg.append(s("text", { x: X(last[0]) - 4, y: Y(last[1]) - 6, "text-anchor": "end", class: "cw-line-label" }, se.name));
+    if (opts.series.length === 1) {
+      const last = se.points[se.points.length - 1];
+      if (last && se.name) svg.append(s("text", { x: X(last[0]) - 4, y: Y(last[1]) - 6, "text-anchor": "end", class: "cw-line-label" }, se.name));
+    }
   });
+  if (opts.series.length > 1) {  // a legend (line sample + name) instead of labels that collide
+    const lg = s("g", { class: "cw-legend-box" });
+    const rowH = 15, w = 150;
+    const x = opts.legendRight ? W - R - w - 6 : L + 6;
+    lg.append(s("rect", { x, y: T + 4, width: w, height: rowH * opts.series.length + 6, class: "cw-legend-bg" }));
+    opts.series.forEach((se, i) => {
+      const y = T + 4 + 6 + rowH * i + 5;
+      lg.append(s("line", { x1: x + 6, x2: x + 30, y1: y, y2: y, class: "cw-line cw-line-" + i, "stroke-dasharray": se.dash || (i ? "6 4" : "none") }));
+      lg.append(s("text", { x: x + 36, y: y + 4 }, se.name || ""));
+    });
+    svg.append(lg);
+  }
   if (opts.marker) {
     const [mx, my] = opts.marker;
     svg.append(s("circle", { cx: X(mx), cy: Y(my), r: 6, class: "cw-marker" }));

@@ -91,21 +91,12 @@ export function h(tag, attrs, ...children) {
   return el;
 }
 
-function fileNotice(root) {
-  root.replaceChildren(
-    h("div", { class: "admonition warning cw-file-notice", role: "alert" },
-      h("p", { class: "admonition-title", text: "This calculator cannot run from a file" }),
-      h("p", { text: "Browsers do not let the Python runtime start on a page opened from the file manager. Serve the site from its folder with one command, then open the address it prints:" }),
-      h("pre", {}, h("code", { text: "python3 -m http.server --bind 127.0.0.1 8000" })),
-      h("p", { text: "Or, in a checkout of the project: make serve. The reference pages work without it." })));
-}
-
 function initPage() {
   startWorker();
   for (const root of document.querySelectorAll("[data-cw-calc]")) {
     if (root.dataset.cwBound) continue;
     root.dataset.cwBound = "1";
-    if (!servedOverHttp()) { fileNotice(root); continue; }
+    if (!servedOverHttp()) continue; // file://: file-pages.js (a classic script) shows the notice
     const setup = CALCULATORS[root.dataset.cwCalc];
     if (!setup) {
       root.replaceChildren(h("p", { class: "cw-error", text: "Unknown calculator: " + root.dataset.cwCalc }));
@@ -117,42 +108,75 @@ function initPage() {
   }
 }
 
-// Offline: a service worker precaches the whole site. A new version found on a later online
-// visit waits until the user accepts it in a non-blocking notice; then every page reloads on it.
-let swRegistered = false;
-function offerUpdate(reg) {
+// Offline: a service worker precaches the whole site, one cache per version. A new version found
+// on a later online visit waits until the user accepts it in a non-blocking notice; then every
+// open page reloads on it, so no page ever mixes the data or calc of two versions.
+let swRegistration = null;
+
+function askVersion(sw) {
+  // The version a service worker serves: {version, data_version, data_date, build}, or null.
+  return new Promise((resolve) => {
+    if (!sw) { resolve(null); return; }
+    const channel = new MessageChannel();
+    const timer = setTimeout(() => resolve(null), 3000);
+    channel.port1.onmessage = (event) => { clearTimeout(timer); resolve(event.data || null); };
+    sw.postMessage({ type: "version" }, [channel.port2]);
+  });
+}
+
+function describe(v) {
+  return v ? "data version " + v.data_version + " (" + v.data_date + "), build " + v.build : "";
+}
+
+async function offerUpdate(reg) {
+  if (document.querySelector(".cw-update") || !reg.waiting) return;
+  const [next, current] = await Promise.all([askVersion(reg.waiting), askVersion(navigator.serviceWorker.controller)]);
   if (document.querySelector(".cw-update")) return;
-  const accept = h("button", { type: "button", class: "md-button md-button--primary", text: "Use the new version" });
-  const later = h("button", { type: "button", class: "md-button", text: "Later" });
-  const bar = h("div", { class: "cw-update", role: "status" },
-    h("span", { text: "A new version of Couplewise (data or calculations) is ready. " }), accept, later);
+  const accept = h("button", { type: "button", class: "md-button md-button--primary cw-update-accept", text: "Use the new version" });
+  const later = h("button", { type: "button", class: "md-button cw-update-later", text: "Later" });
+  const text = "A new version of Couplewise is ready" + (next ? ": " + describe(next) : "") + ". " +
+    (current ? "This page uses " + describe(current) + ". " : "") +
+    "Switching reloads the open pages; until then they keep their version.";
+  const bar = h("div", { class: "cw-update", role: "status", "aria-live": "polite" },
+    h("span", { class: "cw-update-text", text }), accept, later);
   accept.addEventListener("click", () => {
     accept.disabled = true;
     if (reg.waiting) reg.waiting.postMessage({ type: "activate-new-version" });
+    else location.reload(); // another page switched already
   });
   later.addEventListener("click", () => bar.remove());
   document.body.append(bar);
 }
 
-function registerServiceWorker() {
-  if (swRegistered || !servedOverHttp() || !("serviceWorker" in navigator)) return;
-  swRegistered = true;
-  let reloading = false;
-  const hadController = !!navigator.serviceWorker.controller;
-  navigator.serviceWorker.addEventListener("controllerchange", () => {
-    if (!hadController || reloading) return;
-    reloading = true;
-    location.reload();
-  });
-  navigator.serviceWorker.register(new URL("sw.js", siteRoot).href, { scope: siteRoot.pathname }).then((reg) => {
-    if (reg.waiting && navigator.serviceWorker.controller) offerUpdate(reg);
-    reg.addEventListener("updatefound", () => {
-      const nw = reg.installing;
-      if (!nw) return;
-      nw.addEventListener("statechange", () => {
-        if (nw.state === "installed" && navigator.serviceWorker.controller) offerUpdate(reg);
-      });
+function watchForUpdates(reg) {
+  if (reg.waiting && navigator.serviceWorker.controller) offerUpdate(reg);
+  reg.addEventListener("updatefound", () => {
+    const nw = reg.installing;
+    if (!nw) return;
+    nw.addEventListener("statechange", () => {
+      if (nw.state === "installed" && navigator.serviceWorker.controller) offerUpdate(reg);
     });
+  });
+}
+
+function registerServiceWorker() {
+  if (swRegistration || !servedOverHttp() || !("serviceWorker" in navigator)) return;
+  let reloading = false;
+  let controlled = !!navigator.serviceWorker.controller;
+  navigator.serviceWorker.addEventListener("controllerchange", () => {
+    // The first install takes over without a reload (same files); a switch of version reloads.
+    if (controlled && !reloading) {
+      reloading = true;
+      location.reload();
+    }
+    controlled = true;
+  });
+  swRegistration = navigator.serviceWorker.register(new URL("sw.js", siteRoot).href,
+    { scope: siteRoot.pathname, updateViaCache: "none" });
+  swRegistration.then((reg) => {
+    watchForUpdates(reg);
+    // Ask the server for a newer version now (a cheap check of sw.js), not only on navigations.
+    if (navigator.serviceWorker.controller && navigator.onLine) reg.update().catch(() => {});
   }).catch(() => { /* offline use is unavailable (e.g. private mode); the site still works online */ });
 }
 
