@@ -1,6 +1,7 @@
 # Couplewise: two commands do all set-up on a fresh machine.
 #   make serve   set up, build the site and serve it at http://127.0.0.1:8000
 #   make test    set up, then every test (unit, data, site build, browser)
+#   make dist    set up, build, then pack dist/couplewise-<data version>.zip (+ .sha256)
 VENV   ?= .venv
 PY     := $(VENV)/bin/python
 HOST   ?= 127.0.0.1
@@ -11,9 +12,10 @@ PREFIX ?= /
 
 setup: $(VENV)/.installed node_modules/.installed
 
-$(VENV)/.installed: requirements.txt pyproject.toml
+$(VENV)/.installed: requirements.txt requirements-nodeps.txt pyproject.toml
 	python3 -m venv $(VENV)
 	$(VENV)/bin/pip install -q --disable-pip-version-check -r requirements.txt
+	$(VENV)/bin/pip install -q --disable-pip-version-check --no-deps -r requirements-nodeps.txt
 	$(VENV)/bin/pip install -q --disable-pip-version-check --no-deps --no-build-isolation -e .
 	touch $@
 
@@ -29,6 +31,10 @@ site: setup
 
 serve: site
 	$(PY) -m sitebuild.serve site --host $(HOST) --port $(PORT) --prefix $(PREFIX)
+
+# dist/couplewise-<data version>.zip of the built site, and its .sha256 (sha256sum -c format).
+dist: site
+	$(PY) -m sitebuild.dist site dist
 
 chromium:
 	@build/ensure-chromium.sh
