@@ -182,11 +182,13 @@ def galvanic_series_svg(bundle, highlight=()):
         else:
             style = f'fill="{PLAIN_FILL}" stroke="{INK}" stroke-width="{2.2 if hl else 0.8}"'
         tip = f"{name}: {_v(lo)} to {_v(hi)} V vs SCE" + (f" ({state})" if state else "")
-        out.append(f'<g class="cw-bar"{dim}><title>{_x(tip)}</title>'
+        mid = _x(str(m.get("id") or ""))
+        out.append(f'<g class="cw-bar" data-material="{mid}"{dim}><title>{_x(tip)}</title>'
                    f'<rect x="{x0:.1f}" y="{y + (ROW_H - BAR_H) / 2:.1f}" width="{w:.1f}" height="{BAR_H}" '
                    f'{style}/></g>')
         weight = ' font-weight="700"' if hl else ""
-        out.append(f'<text x="{LABEL_RIGHT}" y="{y + ROW_H / 2 + 4:.1f}" text-anchor="end" fill="{INK}"{weight}{dim}>'
+        out.append(f'<text x="{LABEL_RIGHT}" y="{y + ROW_H / 2 + 4:.1f}" text-anchor="end" fill="{INK}"'
+                   f' data-material="{mid}"{weight}{dim}>'
                    f'{_x(_short(name))}</text>')
     # direction words and axis title
     yb = plot_bottom + 40
