@@ -10,9 +10,9 @@ import sys
 
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, ROOT)
-sys.path.insert(0, os.path.join(ROOT, "tests", "browser"))
+sys.path.insert(0, os.path.join(ROOT, "tests", "browser"))  # browserkit
 
-from conftest import CHROMIUM, CHROMIUM_ARGS, Served  # noqa: E402
+from browserkit import CHROMIUM, CHROMIUM_ARGS, Served  # noqa: E402
 
 PAGES = ["", "calculators/joint/", "calculators/matrix/", "calculators/couple/", "calculators/electrode/",
          "calculators/convert/", "calculators/activity/", "reference/series/", "reference/galvanic-series/",

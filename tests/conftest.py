@@ -11,6 +11,10 @@ import sys
 
 import pytest
 
+# --doctest-modules would also import the conftest files as doctest modules, and the two of
+# them (here and in browser/) share the module name "conftest": collect neither as a module.
+collect_ignore = ["conftest.py", os.path.join("browser", "conftest.py")]
+
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 if ROOT not in sys.path:
     sys.path.insert(0, ROOT)

@@ -88,7 +88,7 @@ def test_matrix_published_value(served, guarded):
     ("joint", "#cw-ar", "40"),
 ])
 def test_link_round_trip(served, browser, name, field, value):
-    from conftest import new_guarded_page
+    from browserkit import new_guarded_page
 
     ctx, page, guard = new_guarded_page(browser)
     try:
@@ -139,7 +139,7 @@ def test_print_view(served, guarded, name):
 @pytest.mark.parametrize("viewport", [{"width": 768, "height": 1024}, {"width": 1280, "height": 800}])
 @pytest.mark.parametrize("scheme", ["light", "dark"])
 def test_viewports_dark_mode_no_horizontal_scroll(served, browser, viewport, scheme):
-    from conftest import new_guarded_page
+    from browserkit import new_guarded_page
 
     ctx, page, guard = new_guarded_page(browser, viewport=viewport, color_scheme=scheme)
     try:
