@@ -4,7 +4,7 @@
 // from that cache, so the data and calc of two versions are never mixed. The cache name
 // carries the site's path, so two copies of the site on one server keep apart.
 const META = __META__; // {data_version, data_date, build, version}: version hashes every file
-const PRECACHE = __PRECACHE__; // [[URL relative to the site root, "sha256-..." of its bytes], ...]
+const PRECACHE = __PRECACHE__; // [[URL relative to the site root, "sha256-..." of its bytes or ""], ...]
 const SCOPE = new URL("./", self.location).href;
 const PREFIX = "couplewise:" + new URL(SCOPE).pathname + ":";
 const CACHE = PREFIX + META.version;
@@ -13,13 +13,16 @@ const PARALLEL = 6;
 async function precache() {
   const cache = await caches.open(CACHE);
   const queue = PRECACHE.slice();
+  let failed = false;
   async function next() {
-    for (let item = queue.shift(); item; item = queue.shift()) {
+    for (let item = queue.shift(); item && !failed; item = queue.shift()) {
       const [path, integrity] = item;
       const url = new URL(path, SCOPE).href;
       // Revalidate with the server (never a stale HTTP-cache copy) and check the bytes are this
       // build's: a server caught between two versions fails the install, which is retried later.
-      let response = await fetch(new Request(url, { cache: "no-cache", integrity, credentials: "same-origin" }));
+      const init = { cache: "no-cache", credentials: "same-origin" };
+      if (integrity) init.integrity = integrity;
+      let response = await fetch(new Request(url, init));
       if (!response.ok) throw new Error(url + ": HTTP " + response.status);
       if (response.redirected) {
         // A redirected response cannot answer a navigation: keep the body and headers only.
@@ -31,6 +34,7 @@ async function precache() {
   try {
     await Promise.all(Array.from({ length: PARALLEL }, next));
   } catch (err) {
+    failed = true;
     await caches.delete(CACHE);
     throw err;
   }
@@ -72,12 +76,23 @@ function offlinePage() {
   return new Response(html, { status: 503, headers: { "Content-Type": "text/html; charset=utf-8" } });
 }
 
+// mkdocs writes absolute addresses into sitemap.xml from `site_url` (mkdocs.yml), which names no
+// real host (the same build serves any host and sub-path). Material's instant navigation needs
+// the sitemap to list the pages at their real addresses: rewrite them to this copy's scope.
+const SITEMAP_BASE = "https://couplewise.invalid/";
+
+async function sitemapHere(response) {
+  const text = (await response.text()).split(SITEMAP_BASE).join(SCOPE);
+  return new Response(text, { status: 200, headers: { "Content-Type": "application/xml; charset=utf-8" } });
+}
+
 async function respond(request, url) {
   const cache = await caches.open(CACHE);
   const key = cacheKey(url);
   // ignoreVary: a server that compresses sends "Vary: Accept-Encoding", which is not a reason to
   // miss the precached copy.
   let hit = await cache.match(key, { ignoreVary: true });
+  if (hit && key === SCOPE + "sitemap.xml") return sitemapHere(hit);
   if (hit) return hit;
   if (!url.pathname.endsWith("/") && !/\.[A-Za-z0-9]+$/.test(url.pathname)) {
     // A folder without its slash: send the browser to the folder, so relative links resolve.

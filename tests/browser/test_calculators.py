@@ -17,7 +17,7 @@ def open_calc(page, served, name, params):
     page.goto(served.url(f"calculators/{name}/?" + urlencode(params)))
     big = page.locator(".cw-result .cw-big")
     big.wait_for(timeout=RUNTIME_MS)
-    page.wait_for_function("!document.querySelector('.cw-result').hasAttribute('aria-busy')")
+    page.wait_for_function("() => !document.querySelector('.cw-result').hasAttribute('aria-busy')")
     return big
 
 
@@ -105,7 +105,7 @@ def test_link_round_trip(served, browser, name, field, value):
         open_calc(page2, served, name, {})  # warm the runtime in this page, then open the link
         page2.goto(url)
         page2.locator(".cw-result .cw-big").wait_for(timeout=RUNTIME_MS)
-        page2.wait_for_function("!document.querySelector('.cw-result').hasAttribute('aria-busy')")
+        page2.wait_for_function("() => !document.querySelector('.cw-result').hasAttribute('aria-busy')")
         assert signature(page2) == changed
         assert page2.input_value(field) == value
         page2.reload()
@@ -172,5 +172,32 @@ def test_keyboard_only(served, guarded):
     page.keyboard.press("Control+A")
     page.keyboard.type("-0.700")
     page.keyboard.press("Tab")  # to the next field: focus moves, value is kept, result follows
-    page.wait_for_function("location.search.includes('-0.700')")
+    page.wait_for_function("() => location.search.includes('-0.700')")
     assert page.evaluate("document.activeElement.id") == "cw-from"
+
+
+def test_instant_navigation_keeps_the_runtime(served, browser):
+    # Material's instant navigation swaps pages without reloading the document once the service
+    # worker serves the sitemap at this copy's own address: the calculation worker (and the
+    # Python runtime in it) started on the first page serves the next calculator at once.
+    from browserkit import new_guarded_page
+
+    ctx, page, guard = new_guarded_page(browser)
+    try:
+        page.goto(served.url(""))
+        page.wait_for_function("() => navigator.serviceWorker.ready.then(() => true)", timeout=RUNTIME_MS)
+        page.reload()
+        page.wait_for_function("() => navigator.serviceWorker.controller !== null", timeout=RUNTIME_MS)
+        page.evaluate("window.__same_document = true")
+        page.click("a.md-tabs__link:has-text('Calculators')")
+        page.locator(".cw-result .cw-big").wait_for(timeout=RUNTIME_MS)
+        page.click("a.md-nav__link[href*='couple']")
+        page.wait_for_function("() => location.pathname.includes('couple')")
+        page.locator(".cw-result .cw-big-value").wait_for(timeout=RUNTIME_MS)
+        assert page.evaluate("window.__same_document") is True
+        workers = page.evaluate(
+            "performance.getEntriesByType('resource').filter(e => e.name.includes('calc-worker')).length")
+        assert workers == 1
+    finally:
+        ctx.close()
+    assert guard.outside == [] and guard.page_errors == []

@@ -42,7 +42,7 @@ def test_couple_non_standard_case_in_browser(served, guarded):
 
     # The user changes an input: the result follows without any button.
     page.fill("#cw-sp-Cu2_", "1")
-    page.wait_for_function("document.querySelector('.cw-big-value').textContent.trim() === '+1.1333'",
+    page.wait_for_function("() => document.querySelector('.cw-big-value').textContent.trim() === '+1.1333'",
                            timeout=30_000)  # 1.1037 − (0.0591593/2)·log10(0.1/1) = 1.1333 V
     os.makedirs("tests/artifacts", exist_ok=True)
     page.screenshot(path="tests/artifacts/couple-1280.png", full_page=True)
