@@ -12,7 +12,7 @@ import re
 
 from .errors import DataError, InputError
 
-KINDS = ("half_reactions", "reference_electrodes", "materials", "environments", "ions", "sources")
+KINDS = ("half_reactions", "reference_electrodes", "materials", "environments", "ions", "sources", "cp_criteria")
 _BUNDLE_NAME = "dataset.json"
 _current = None
 

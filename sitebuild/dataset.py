@@ -20,6 +20,7 @@ FILES = {
     "environments.yaml": "environments",
     "ions.yaml": "ions",
     "sources.yaml": "sources",
+    "cp_criteria.yaml": "cp_criteria",
 }
 
 

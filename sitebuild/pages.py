@@ -533,6 +533,100 @@ class _Pages:
         lines.append(self.footer("sources.md"))
         return "\n".join(lines)
 
+    def cp_criteria(self):
+        """The cathodic-protection criteria, grouped by structure, each with its standard and clause."""
+        from calc.fieldcheck import SETTINGS, STRUCTURES
+
+        recs = self._recs("cp_criteria")
+        electrodes = {r.get("id") for r in self._recs("reference_electrodes")}
+        lines = [
+            "# Cathodic-protection criteria",
+            "",
+            "Potential criteria of cathodic protection (CP) as the standards state them: the value, the "
+            "reference electrode it is stated against, whether it needs the IR-free (\"instant-off\") "
+            "potential, and the standard and clause, with every other document that states the same "
+            "criterion. The site-readings calculator and the survey log judge readings against these "
+            "records.",
+            "",
+            "An on reading, taken with the protective current flowing, includes the IR drop of that "
+            "current in the soil or water and looks more negative than the structure's polarised "
+            "potential. A criterion marked IR-free needs the potential read at the instant the current "
+            "is interrupted (instant-off) or on a coupon.",
+            "",
+            f"{PROVISIONAL} marks a value recalled and not re-read in its standard, or one on which the "
+            "documents differ: check it in the standard before relying on it. Where documents differ, the "
+            "value used for judging is shown with the span they give.",
+            "",
+            "!!! warning \"Safety\"",
+            "    Criteria apply as the named standard defines them. Follow the operator's procedures, the "
+            "local regulation and a qualified cathodic-protection specialist.",
+            "",
+        ]
+        if not recs:
+            lines += ["No criteria in this dataset.", ""]
+        groups = {}
+        for r in recs:
+            groups.setdefault(r.get("structure"), []).append(r)
+        notes = []
+        for sid, group in groups.items():
+            title = STRUCTURES[sid][0] if sid in STRUCTURES else sid
+            lines += [f"## {esc(title)} {{#cp-structure-{_slug(sid)}}}", "",
+                      "| Criterion | Where | Value | IR-free | Standard and clause | Also stated in |",
+                      "|---|---|---|---|---|---|"]
+            for r in group:
+                rid = r.get("id")
+                anchor = "cp-" + _slug(rid)
+                link = f"cp-criteria.md#{anchor}"
+                what = f"CP criterion {rid}"
+                kind = r.get("kind")
+                el = r.get("electrode")
+                el_txt = (f"[{esc(el)}](electrodes.md#{electrode_anchor(el)})" if el in electrodes
+                          else esc(el)) if el else ""
+                if kind in ("protection", "limit") and _isnum(r.get("potential_V")):
+                    sign = "≤" if kind == "protection" else "not below"
+                    value = f"{sign} {_signed(r['potential_V'], 2)} V vs {el_txt}"
+                elif _isnum(r.get("shift_V")):
+                    what_shift = " shift, current on" if kind == "shift-on" else " polarisation"
+                    value = f"≥ {_num(round(r['shift_V'] * 1000, 6))} mV" + what_shift
+                else:
+                    value = esc(r.get("potential_V", r.get("shift_V")))
+                rng = r.get("range_V")
+                if isinstance(rng, list) and len(rng) == 2:
+                    value += f"<br>documents: {_pair_text(rng, 'V', places=2)}"
+                temp = r.get("structure_temp_C")
+                if isinstance(temp, list) and len(temp) == 2:
+                    value += f"<br>structure at {_num(temp[0])} to {_num(temp[1])} °C"
+                    ramp = r.get("ramp_C")
+                    if isinstance(ramp, list) and len(ramp) == 2:
+                        value += f", linear from {_num(ramp[0])} to {_num(ramp[1])} °C"
+                settings = r.get("settings") or []
+                where = "<br>".join(esc(SETTINGS[s][0] if s in SETTINGS else s) for s in settings)
+                std = citation_short(self.sources.get(r.get("source")), r.get("source"))
+                src = f"{std}, {esc(r.get('clause'))}" + self.cite(r, "", where="sources.md", what=what, link=link)
+                also, also_notes = [], []
+                for a in r.get("also") or []:
+                    if not isinstance(a, dict):
+                        continue
+                    short = citation_short(self.sources.get(a.get("source")), a.get("source"))
+                    also.append(f"{short}, {esc(a.get('clause'))}"
+                                + self.cite(a, "", where="sources.md", what=what, link=link))
+                    if a.get("note"):
+                        also_notes.append(f"{short}: {esc(a['note'])}")
+                flags = f" {PROVISIONAL}" if r.get("provisional") else ""
+                lines.append(f"| <span id=\"{anchor}\"></span>**{esc(r.get('name') or rid)}**{flags}<br>"
+                             f"`{_code(rid)}` | {where} | {value} | "
+                             f"{'yes' if r.get('ir_free') else 'no'} | {src} | {'<br>'.join(also) or '–'} |")
+                if r.get("note") or also_notes:
+                    text = " ".join([esc(r["note"])] if r.get("note") else [])
+                    if also_notes:
+                        text += (" " if text else "") + " ".join(n.rstrip(".") + "." for n in also_notes)
+                    notes.append(f"- [{esc(r.get('name') or rid)}](#{anchor}): {text}")
+            lines.append("")
+        if notes:
+            lines += ["## Notes", ""] + notes
+        lines.append(self.footer("sources.md"))
+        return "\n".join(lines)
+
     def sources_page(self):
         lines = [
             "# Sources",
@@ -595,6 +689,24 @@ def _galvanic_order(m):
     if isinstance(rng, list) and len(rng) == 2 and all(_isnum(v) for v in rng):
         return (0, -rng[1], -rng[0], str(m.get("name")))
     return (1, 0, 0, str(m.get("name")))
+
+
+#: the flag on a CP criterion recalled and not re-read, or on which the documents differ
+PROVISIONAL = ('<abbr class="cw-provisional" title="provisional: recalled and not re-read, or the documents '
+               'differ; check it in the standard">provisional</abbr>')
+
+
+def citation_short(s, source_id=None):
+    """A cited document's designation (e.g. ``ISO 15589-1:2015``), or its title and year (escaped).
+
+    >>> citation_short({"container": "EN 12954:2001", "title": "x"})
+    'EN 12954&#58;2001'
+    """
+    if not s:
+        return esc(source_id)
+    if s.get("container"):
+        return esc(s["container"])
+    return esc(s.get("title") or source_id) + (f", {esc(s['year'])}" if s.get("year") else "")
 
 
 def citation(s):
@@ -691,6 +803,7 @@ def generate_pages(bundle):
     pages["reference/environments.md"] = p.environments()
     pages["reference/ions.md"] = p.ions()
     pages["reference/galvanic-series.md"] = p.galvanic_series()
+    pages["reference/cp-criteria.md"] = p.cp_criteria()
     pages["reference/sources.md"] = p.sources_page()  # last: it lists what every other page cited
     return {path: _with_title(text) for path, text in pages.items()}
 

@@ -18,7 +18,10 @@ Checks, in order:
    C: X→Z), and acid/alkaline forms of a couple through the ionic product of water;
 8. reference electrodes: the temperature model gives ``E_V_SHE`` at 25 °C within 1 mV;
 9. materials: ``other_state`` links point back, passive states are nobler than active ones;
-10. environments and ions: basis, series, tiers and charges are coherent.
+10. environments and ions: basis, series, tiers and charges are coherent;
+11. cathodic-protection criteria: structure, setting and electrode ids exist, values and ranges
+    are coherent, one base criterion and one limit per structure and setting, limits below
+    protection potentials.
 """
 
 import json
@@ -34,7 +37,8 @@ from calc.species import balance_problems, parse_species
 from .dataset import FILES, PROJECT_DATA
 
 FILE_OF = {key: fname for fname, key in FILES.items()}
-KIND_ORDER = ["sources", "half_reactions", "reference_electrodes", "materials", "environments", "ions"]
+KIND_ORDER = ["sources", "half_reactions", "reference_electrodes", "materials", "environments", "ions",
+              "cp_criteria"]
 
 CONFIDENCES = ("read", "recalled", "computed")
 MAX_SCHEMA_ERRORS_PER_FILE = 200
@@ -345,6 +349,10 @@ def _source_fields(rec, prefix=()):
             yield prefix + (key,), value
         elif isinstance(value, dict):
             yield from _source_fields(value, prefix + (key,))
+        elif isinstance(value, list):  # lists of citations (e.g. cp_criteria also[])
+            for i, item in enumerate(value):
+                if isinstance(item, dict):
+                    yield from _source_fields(item, prefix + (key, i))
 
 
 def _numeric(value):
@@ -945,6 +953,105 @@ def _ions(raw, out):
                                           f"({parsed.charge:+d}){hint}")
 
 
+# --- 11. cathodic-protection criteria -----------------------------------------------------------------
+#: potentials of CP criteria: beyond magnesium anodes (about -1.75 V CSE) or oxygen evolution is a
+#: typo or a unit slip [V] (common practice)
+CP_POTENTIAL_RANGE_V = (-2.5, 1.0)
+#: polarisation and on-potential shifts of CP criteria: 100 and 300 mV are the published ones [V]
+#: (common practice)
+CP_SHIFT_MAX_V = 1.0
+
+
+def _cp_criteria(raw, out):
+    from calc.fieldcheck import SETTINGS, STRUCTURES
+
+    k = "cp_criteria"
+    ref_recs = {rec.get("id"): rec for _, rec in _each(raw, "reference_electrodes") if isinstance(rec.get("id"), str)}
+    have_refs = isinstance(raw.get("reference_electrodes"), list)
+    base, limits, ramps = {}, {}, []
+    for label, rec in _each(raw, k):
+        structure, settings, kind = rec.get("structure"), rec.get("settings"), rec.get("kind")
+        if isinstance(structure, str) and structure not in STRUCTURES:
+            out.error(k, label, "structure", f"structure {structure!r} is not one calc knows: expected one of "
+                                             f"{', '.join(STRUCTURES)} (calc.fieldcheck.STRUCTURES)")
+        settings = [s for s in settings if isinstance(s, str)] if isinstance(settings, list) else []
+        for i, s in enumerate(settings):
+            if s not in SETTINGS:
+                out.error(k, label, f"settings[{i}]", f"setting {s!r} is not one calc knows: expected one of "
+                                                      f"{', '.join(SETTINGS)} (calc.fieldcheck.SETTINGS)")
+        electrode = rec.get("electrode")
+        if isinstance(electrode, str) and have_refs and electrode not in ref_recs:
+            import difflib
+
+            close = difflib.get_close_matches(electrode, list(ref_recs), n=3, cutoff=0.5)
+            hint = f" (closest: {', '.join(close)})" if close else ""
+            out.error(k, label, "electrode", f"unknown reference electrode {electrode!r}: not an id in "
+                                             f"reference_electrodes.yaml{hint}")
+        pot = rec.get("potential_V")
+        pot_ok = _in_range(k, label, "potential_V", pot, *CP_POTENTIAL_RANGE_V, "V", out)
+        _in_range(k, label, "shift_V", rec.get("shift_V"), 0.0, CP_SHIFT_MAX_V, "V", out, lo_open=True)
+        rng = _pair(k, label, "range_V", rec.get("range_V"), *CP_POTENTIAL_RANGE_V, "V", out, strict=True,
+                    ends="[most negative, least negative]")
+        if rng and pot_ok and not rng[0] <= pot <= rng[1]:
+            out.error(k, label, "range_V", f"the range {_fmt(rec['range_V'])} does not contain potential_V {pot:g}")
+        window = _pair(k, label, "structure_temp_C", rec.get("structure_temp_C"), *TEMP_RANGE_C, "°C", out,
+                       strict=True)
+        ramp = _pair(k, label, "ramp_C", rec.get("ramp_C"), *TEMP_RANGE_C, "°C", out, strict=True,
+                     ends="[from, full]")
+        if "ramp_C" in rec and "structure_temp_C" not in rec:
+            out.error(k, label, "ramp_C", "ramp_C needs structure_temp_C (the temperatures the record applies to)")
+        elif ramp and window and not (window[0] <= ramp[0] and ramp[1] <= window[1]):
+            out.error(k, label, "ramp_C", f"the ramp {_fmt(rec['ramp_C'])} lies outside structure_temp_C "
+                                          f"{_fmt(rec['structure_temp_C'])}")
+        if "ramp_C" in rec and kind == "limit":
+            out.error(k, label, "ramp_C", "only protection criteria can move with temperature")
+        also = rec.get("also")
+        for i, cit in enumerate(also if isinstance(also, list) else []):
+            if isinstance(cit, dict) and cit.get("source") is not None and cit.get("source") == rec.get("source"):
+                out.error(k, label, f"also[{i}].source", f"{cit['source']!r} is already the record's own source")
+        for s in settings:
+            key = (structure, s)
+            if kind == "protection" and "structure_temp_C" not in rec:
+                if key in base:
+                    out.error(k, label, "settings", f"{structure} in {s} already has a base protection criterion "
+                                                    f"({base[key][0]}): one per structure and setting")
+                else:
+                    base[key] = (label, rec)
+            elif kind == "limit":
+                if key in limits:
+                    out.error(k, label, "settings", f"{structure} in {s} already has a negative limit "
+                                                    f"({limits[key][0]}): one per structure and setting")
+                else:
+                    limits[key] = (label, rec)
+        if kind == "protection" and "structure_temp_C" in rec:
+            ramps.append((label, rec, settings))
+
+    def at25(rec):  # a record's potential vs SHE at 25 °C, or None
+        ref = ref_recs.get(rec.get("electrode"))
+        e_ref = refelec_potential(ref, 25.0) if ref else None
+        return rec["potential_V"] + e_ref if _is_num(rec.get("potential_V")) and _is_num(e_ref) else None
+
+    for label, rec, settings in ramps:
+        for s in settings:
+            b = base.get((rec.get("structure"), s))
+            if b is None:
+                out.error(k, label, "settings", f"no base protection criterion for {rec.get('structure')} in {s} "
+                                                "for this temperature criterion to move from")
+            elif b[1].get("electrode") != rec.get("electrode"):
+                out.error(k, label, "electrode", f"the temperature criterion is against {rec.get('electrode')!r} but "
+                                                 f"its base {b[0]} against {b[1].get('electrode')!r}: use the same")
+    for key, (llabel, lrec) in limits.items():
+        b = base.get(key)
+        if b is None:
+            continue
+        e_lim, e_prot = at25(lrec), at25(b[1])
+        if e_lim is not None and e_prot is not None and e_lim >= e_prot:
+            out.error(k, llabel, "potential_V", f"the negative limit {lrec['potential_V']:g} V vs {lrec['electrode']} "
+                                                f"is not below the protection criterion {b[0]} "
+                                                f"({b[1]['potential_V']:g} V vs {b[1]['electrode']}) for {key[0]} in "
+                                                f"{key[1]}")
+
+
 # --- entry points ------------------------------------------------------------------------------------
 def validate_raw(raw, data_dir):
     """Every problem in the raw records, as ``file:record:field: message`` lines.
@@ -975,6 +1082,7 @@ def validate_raw(raw, data_dir):
     _materials(raw, out)
     _environments(raw, out)
     _ions(raw, out)
+    _cp_criteria(raw, out)
     return out.lines
 
 

@@ -31,6 +31,7 @@ FILES = {
     "materials": "materials",
     "environments": "environments",
     "ions": "ions",
+    "cp_criteria": "cp_criteria",
 }
 
 

@@ -1,0 +1,289 @@
+// Site readings: two calculators over calc.fieldcheck.
+//   measured: a joint judged from the two parts' potentials measured on site (entry "measured");
+//   cp:       one cathodic-protection reading against the published criteria (entry "cp").
+// They share a page, so their field ids and URL parameters carry a prefix of their own, and each
+// writes only its own parameters. Imported by calculators.mjs (circular import): bindings from
+// calculators.mjs are used only inside functions, never at module evaluation.
+import { dataset, h } from "./couplewise.mjs";
+import {
+  derivation, field, fill, fmt, frame, materialOptions, numberInput, readNumber, runner, select, signed,
+  sourceLink, sourcesLine, verdictBadge, warningsList,
+} from "./calculators.mjs";
+
+// Names of the structures and settings of calc.fieldcheck (STRUCTURES, SETTINGS); a test keeps
+// the two in step.
+export const STRUCTURE_NAMES = {
+  "carbon-steel": "Carbon steel (C-Mn and low-alloy, yield strength up to 550 MPa)",
+  "high-strength-steel": "High-strength steel (specified minimum yield strength above 550 MPa)",
+  "stainless-pren-40": "Austenitic stainless steel, PREN 40 or more",
+  "stainless-pren-below-40": "Austenitic stainless steel, PREN below 40",
+  "copper-alloys": "Copper and copper alloys without aluminium",
+  "aluminium": "Aluminium and aluminium alloys",
+  "galvanized-steel": "Galvanized (zinc-coated) steel",
+};
+export const SETTING_NAMES = {
+  "soil-aerobic": "Buried, aerobic soil, resistivity below 100 Ω·m",
+  "soil-anaerobic": "Buried, anaerobic soil with sulfate-reducing bacteria",
+  "soil-aerated-100-1000": "Buried, aerated sandy soil, 100 to 1000 Ω·m",
+  "soil-aerated-above-1000": "Buried, aerated soil, 1000 Ω·m or more",
+  "seawater-aerobic": "Immersed in aerobic seawater",
+  "seawater-anaerobic": "In seawater sediment, anaerobic (sulfate-reducing bacteria)",
+};
+export const AGAGCL_SW = "Ag/AgCl seawater";
+export const CP_SYMBOL = { "protected": "✓", "not protected": "✗", "over-protected": "⚠" };
+
+// Field electrodes: every electrode of the dataset (RHE is not one).
+export function electrodeOptions(ds) {
+  return ds.reference_electrodes.map((r) => ({ value: r.id, label: r.id + " (" + signed(r.E_V_SHE, 4) + " V vs SHE at 25 °C)" }));
+}
+
+// Structures that have criteria, and the settings that have criteria for one structure.
+export function structureOptions(ds) {
+  const seen = [];
+  for (const r of ds.cp_criteria || []) if (!seen.includes(r.structure)) seen.push(r.structure);
+  return seen.map((id) => ({ value: id, label: STRUCTURE_NAMES[id] || id }));
+}
+
+export function settingOptions(ds, structure) {
+  const seen = [];
+  for (const r of ds.cp_criteria || []) {
+    if (r.structure !== structure || r.kind === "shift-on") continue;
+    for (const s of r.settings || []) if (!seen.includes(s)) seen.push(s);
+  }
+  const order = Object.keys(SETTING_NAMES);
+  seen.sort((a, b) => order.indexOf(a) - order.indexOf(b));
+  return seen.map((id) => ({ value: id, label: SETTING_NAMES[id] || id }));
+}
+
+export function fillSelect(sel, options, value) {
+  sel.replaceChildren(...options.map((o) => h("option", { value: o.value, text: o.label })));
+  if (options.some((o) => o.value === value)) sel.value = value;
+  return sel.value;
+}
+
+export function cpBadge(verdict, conclusive) {
+  return h("span", { class: "cw-verdict cw-cp cw-cp-" + verdict.replace(/\s+/g, "-") + (conclusive === false ? " cw-cp-open" : ""), "data-verdict": verdict },
+    h("span", { class: "cw-v-symbol", "aria-hidden": "true", text: CP_SYMBOL[verdict] || "?" }), " ", verdict,
+    conclusive === false ? h("span", { class: "cw-cp-open-note", text: " (not conclusive)" }) : null);
+}
+
+// URL state of one calculator on a shared page: only the keys with its prefix are written.
+function ownParams(prefix) {
+  const all = new URLSearchParams(location.search);
+  return {
+    get: (k) => all.get(prefix + k),
+    write(entries) {
+      const url = new URL(location.href);
+      const p = new URLSearchParams(url.search);
+      for (const k of [...p.keys()]) if (k.startsWith(prefix)) p.delete(k);
+      for (const [k, v] of entries) if (v !== undefined && v !== null && v !== "") p.set(prefix + k, v);
+      url.search = p.toString();
+      history.replaceState(history.state, "", url.href);
+    },
+  };
+}
+
+function cautionsBox(cautions) {
+  if (!cautions || !cautions.length) return null;
+  return h("div", { class: "admonition warning" }, h("p", { class: "admonition-title", text: "Cautions" }),
+    h("ul", {}, cautions.map((c) => h("li", { text: c }))));
+}
+
+function assumptionsBox(items) {
+  if (!items || !items.length) return null;
+  return h("details", { class: "cw-assumptions" }, h("summary", { text: "Assumptions" }), h("ul", {}, items.map((a) => h("li", { text: a }))));
+}
+
+// ---------------------------------------------------------------------------------------
+// Measured joint.
+
+// Demo scenario of our own: before a stainless access ladder is bolted to a steel sheet pile in
+// a quiet dock, both are read on their own against a silver/silver-chloride seawater cell.
+const MEASURED_START = { a: "sheet pile", av: "-0.680", b: "ladder", bv: "-0.120", el: AGAGCL_SW, t: "14", env: "seawater-quiescent", s: "", am: "carbon-steel", bm: "stainless-316-passive" };
+
+async function measuredCalc(root) {
+  const ui = frame(root, "Measured joint");
+  const ds = await dataset();
+  const url = ownParams("m.");
+  const get = (k) => url.get(k) ?? MEASURED_START[k];
+  const elIds = new Set(ds.reference_electrodes.map((r) => r.id));
+  const envIds = new Set(ds.environments.map((e) => e.id));
+  const matIds = new Set(ds.materials.map((m) => m.id));
+  const matOpts = [{ value: "", label: "— not given —" }, ...materialOptions(ds)];
+  const aName = field("cw-m-a", "First part", h("input", { type: "text", autocomplete: "off", value: get("a"), maxlength: "100" }), "a label, e.g. sheet pile");
+  const aRead = field("cw-m-av", "First part: reading (V)", numberInput(get("av")), "as read on the meter, against the electrode below");
+  const bName = field("cw-m-b", "Second part", h("input", { type: "text", autocomplete: "off", value: get("b"), maxlength: "100" }), "a label, e.g. ladder");
+  const bRead = field("cw-m-bv", "Second part: reading (V)", numberInput(get("bv")), "against the same electrode");
+  const elField = field("cw-m-el", "Reference electrode", select(electrodeOptions(ds), elIds.has(get("el")) ? get("el") : MEASURED_START.el));
+  const tField = field("cw-m-t", "Electrode temperature (°C)", numberInput(get("t")), "0 to 100 °C");
+  const envField = field("cw-m-env", "Environment", select(ds.environments.map((e) => ({ value: e.id, label: e.name })), envIds.has(get("env")) ? get("env") : MEASURED_START.env));
+  const sField = field("cw-m-s", "Salinity (g/kg)", numberInput(get("s")), "for the Ag/AgCl seawater electrode in brackish water; empty for full-strength seawater (35)");
+  const amField = field("cw-m-am", "First part: material (optional)", select(matOpts, matIds.has(get("am")) ? get("am") : (url.get("am") === "-" ? "" : MEASURED_START.am)));
+  const bmField = field("cw-m-bm", "Second part: material (optional)", select(matOpts, matIds.has(get("bm")) ? get("bm") : (url.get("bm") === "-" ? "" : MEASURED_START.bm)));
+  ui.formBox.append(
+    h("div", { class: "cw-row" }, aName.el, aRead.el, amField.el),
+    h("div", { class: "cw-row" }, bName.el, bRead.el, bmField.el),
+    h("div", { class: "cw-row" }, elField.el, tField.el, sField.el),
+    h("div", { class: "cw-row" }, envField.el));
+
+  function collect() {
+    let bad = false;
+    const req = { electrode: elField.control.value, env: envField.control.value };
+    for (const [f, key, what] of [[aName, "a_name", "a label for the first part"], [bName, "b_name", "a label for the second part"]]) {
+      const v = f.control.value.trim();
+      if (!v) { f.setError("Enter " + what + "."); bad = true; } else { f.setError(""); req[key] = v; }
+    }
+    for (const [f, key] of [[aRead, "a_reading_V"], [bRead, "b_reading_V"]]) {
+      const r = readNumber(f.control, { min: -10, max: 10, allowed: "a reading from −10 to +10 V" });
+      f.setError(r.error); if (r.error) bad = true; else req[key] = r.value;
+    }
+    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
+    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
+    sField.el.hidden = req.electrode !== AGAGCL_SW;
+    if (!sField.el.hidden && sField.control.value.trim() !== "") {
+      const s = readNumber(sField.control, { positive: true, max: 45, allowed: "a salinity above 0 and up to 45 g/kg" });
+      sField.setError(s.error); if (s.error) bad = true; else req.salinity = s.value;
+    } else sField.setError("");
+    if (amField.control.value) req.a_material = amField.control.value;
+    if (bmField.control.value) req.b_material = bmField.control.value;
+    url.write([["a", aName.control.value.trim()], ["av", aRead.control.value.trim()], ["b", bName.control.value.trim()],
+      ["bv", bRead.control.value.trim()], ["el", req.electrode], ["t", tField.control.value.trim()], ["env", req.env],
+      ["s", sField.el.hidden ? "" : sField.control.value.trim()], ["am", amField.control.value || "-"], ["bm", bmField.control.value || "-"]]);
+    return { req, bad };
+  }
+  function fieldFor(name) {
+    return { a_name: aName, a_reading_V: aRead, b_name: bName, b_reading_V: bRead, electrode: elField, temp_C: tField,
+      env: envField, salinity: sField, a_material: amField, b_material: bmField }[name] || null;
+  }
+  function render(r) {
+    const pub = r.published;
+    const rows = [
+      ["Anode (attacked)", r.anode || "neither (equal readings)"],
+      ["Cathode", r.cathode || "—"],
+      [r.a_name + ", as read", signed(r.a_reading_V, 3) + " V vs " + r.electrode],
+      [r.b_name + ", as read", signed(r.b_reading_V, 3) + " V vs " + r.electrode],
+      [r.a_name + " on the SCE scale", signed(r.a_V_SCE, 3) + " V vs SCE"],
+      [r.b_name + " on the SCE scale", signed(r.b_V_SCE, 3) + " V vs SCE"],
+    ];
+    const table = h("table", { class: "cw-compare" }, h("tbody", {},
+      rows.map(([k, v]) => h("tr", {}, h("th", { text: k }), h("td", { text: v }))),
+      h("tr", {}, h("th", { text: "Measured difference ΔE" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
+      h("tr", {}, h("th", { text: "Allowable ΔE in " + r.env_name }), h("td", {}, fmt(r.allowable_V, 2) + " V ", r.allowable_source ? sourceLink(r.allowable_source) : null)),
+      h("tr", {}, h("th", { text: "Margin" }), h("td", { text: signed(r.margin_V, 3) + " V" }))));
+    const pubBox = pub ? h("section", { class: "cw-published", "aria-label": "Published-series judgement" },
+      h("h3", { text: "Beside it: the published galvanic series" }),
+      h("p", {}, verdictBadge(pub.verdict), " ", pub.verdict_text),
+      h("p", { class: r.agreement ? "cw-agree" : "cw-disagree", role: r.agreement ? null : "note", text: r.agreement_text })) : null;
+    const states = (r.state_check || []).map((s) => h("li", { text: s.material + ": if it turns active (published drop " + fmt(s.drop_V, 3) + " V), ΔE would be " + fmt(s.delta_E_if_active_V, 3) + " V" + (s.fails ? ", beyond the allowable" : ", still within the allowable") }));
+    fill(ui.result,
+      h("p", { class: "cw-big" }, verdictBadge(r.verdict)),
+      h("p", { class: "cw-direction", text: r.verdict_text }),
+      h("p", { class: "cw-meaning", text: "“" + r.verdict + "”: " + r.verdict_meaning }),
+      table, warningsList(r.warnings), pubBox,
+      states.length ? h("details", { class: "cw-states", open: true }, h("summary", { text: "Passive and active states" }), h("ul", {}, states)) : null,
+      assumptionsBox(r.assumptions), derivation(r.steps), cautionsBox(r.cautions), sourcesLine(r.sources, r.data_version));
+  }
+  const run = runner(ui, "measured", render, fieldFor);
+  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
+  ui.formBox.addEventListener("input", changed);
+  ui.formBox.addEventListener("change", changed);
+  const first = collect();
+  run.now(first.req, first.bad);
+}
+
+// ---------------------------------------------------------------------------------------
+// CP reading.
+
+// Demo scenario of our own: an instant-off reading at a test post on a buried steel water main.
+const CP_START = { st: "carbon-steel", set: "soil-aerobic", v: "-0.870", el: "CSE", k: "instant-off", t: "12", tst: "", p: "", s: "" };
+
+export const KIND_OPTIONS = [
+  { value: "instant-off", label: "instant-off (current just interrupted)" },
+  { value: "on", label: "on (protective current flowing)" },
+];
+
+// Render one CP judgement (shared with the survey log).
+export function cpResultNodes(r) {
+  const rows = (r.criteria || []).map((c) => {
+    let value = "", reading = "", result = "";
+    if (c.role === "protection") { value = "≤ " + signed(c.value_V, 3) + " V vs " + c.electrode; reading = signed(c.reading_V, 3) + " V"; result = c.met ? "met" : "not met"; }
+    else if (c.role === "limit") { value = "not below " + signed(c.value_V, 3) + " V vs " + c.electrode; reading = signed(c.reading_V, 3) + " V"; result = c.exceeded ? "beyond the limit" : "within the limit"; }
+    else if (c.role === "polarisation") { value = "≥ " + fmt(c.value_mV, 0) + " mV"; reading = c.given_mV === null || c.given_mV === undefined ? "not given" : fmt(c.given_mV, 0) + " mV"; result = c.met === null ? (c.applies ? "not checked" : "does not apply") : (c.met ? "met" : "not met"); }
+    else { value = "≥ " + fmt(c.value_mV, 0) + " mV (current on)"; reading = "—"; result = "not checked"; }
+    if (c.borderline) result += " (borderline)";
+    if (c.conclusive === false) result += ", not conclusive";
+    return h("tr", { "data-criterion": c.id },
+      h("td", {}, h("strong", { text: c.name }), c.provisional ? h("span", { class: "cw-badge cw-badge-prov", text: "provisional" }) : null),
+      h("td", {}, c.standard + ", " + c.clause + " ", sourceLink(c.source), c.confidence === "recalled" ? h("span", { class: "cw-recalled-tag", text: " (recalled)" }) : null),
+      h("td", { text: value }), h("td", { text: reading }), h("td", { text: c.ir_free ? "instant-off" : "on" }), h("td", { class: "cw-crit-result", text: result }));
+  });
+  return [
+    h("p", { class: "cw-big" }, cpBadge(r.verdict, r.conclusive)),
+    h("p", { class: "cw-direction", text: r.verdict_text }),
+    h("p", { class: "cw-ir", text: r.ir_drop }),
+    h("div", { class: "cw-matrix-wrap" }, h("table", { class: "cw-compare cw-criteria" },
+      h("thead", {}, h("tr", {}, ["Criterion", "Standard and clause", "Value", "Your reading on its electrode", "Needs", "Result"].map((t) => h("th", { text: t })))),
+      h("tbody", {}, rows))),
+    warningsList(r.warnings),
+  ];
+}
+
+async function cpCalc(root) {
+  const ui = frame(root, "CP reading");
+  const ds = await dataset();
+  const url = ownParams("c.");
+  const get = (k) => url.get(k) ?? CP_START[k];
+  const elIds = new Set(ds.reference_electrodes.map((r) => r.id));
+  const stOpts = structureOptions(ds);
+  const stField = field("cw-c-st", "Structure", select(stOpts, stOpts.some((o) => o.value === get("st")) ? get("st") : CP_START.st));
+  const setField = field("cw-c-set", "Setting", select([], ""));
+  fillSelect(setField.control, settingOptions(ds, stField.control.value), get("set"));
+  const vField = field("cw-c-v", "Reading (V)", numberInput(get("v")), "structure-to-electrolyte potential as read, e.g. −0.870");
+  const elField = field("cw-c-el", "Reference electrode", select(electrodeOptions(ds), elIds.has(get("el")) ? get("el") : CP_START.el));
+  const kField = field("cw-c-k", "Reading taken", select(KIND_OPTIONS, KIND_OPTIONS.some((o) => o.value === get("k")) ? get("k") : CP_START.k));
+  const tField = field("cw-c-t", "Electrode temperature (°C)", numberInput(get("t")), "0 to 100 °C");
+  const tsField = field("cw-c-tst", "Structure temperature (°C, optional)", numberInput(get("tst")), "empty: the electrode's; matters above 40 °C");
+  const pField = field("cw-c-p", "Polarisation shift (mV, optional)", numberInput(get("p")), "instant-off minus depolarised potential, for the 100 mV criterion");
+  const sField = field("cw-c-s", "Salinity (g/kg)", numberInput(get("s")), "Ag/AgCl seawater electrode in brackish water; empty for seawater (35)");
+  ui.formBox.append(h("div", { class: "cw-row" }, stField.el, setField.el),
+    h("div", { class: "cw-row" }, vField.el, elField.el, kField.el),
+    h("div", { class: "cw-row" }, tField.el, tsField.el, pField.el, sField.el));
+  function collect() {
+    let bad = false;
+    const req = { structure: stField.control.value, setting: setField.control.value, electrode: elField.control.value, reading_kind: kField.control.value };
+    const v = readNumber(vField.control, { min: -10, max: 10, allowed: "a reading from −10 to +10 V" });
+    vField.setError(v.error); if (v.error) bad = true; else req.reading_V = v.value;
+    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
+    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
+    for (const [f, key, opts] of [[tsField, "structure_temp_C", { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C, or empty" }],
+      [pField, "polarisation_mV", { min: 0, max: 2000, allowed: "a shift from 0 to 2000 mV, or empty" }]]) {
+      if (f.control.value.trim() === "") { f.setError(""); continue; }
+      const x = readNumber(f.control, opts);
+      f.setError(x.error); if (x.error) bad = true; else req[key] = x.value;
+    }
+    sField.el.hidden = req.electrode !== AGAGCL_SW;
+    if (!sField.el.hidden && sField.control.value.trim() !== "") {
+      const s = readNumber(sField.control, { positive: true, max: 45, allowed: "a salinity above 0 and up to 45 g/kg" });
+      sField.setError(s.error); if (s.error) bad = true; else req.salinity = s.value;
+    } else sField.setError("");
+    url.write([["st", req.structure], ["set", req.setting], ["v", vField.control.value.trim()], ["el", req.electrode], ["k", req.reading_kind],
+      ["t", tField.control.value.trim()], ["tst", tsField.control.value.trim()], ["p", pField.control.value.trim()], ["s", sField.el.hidden ? "" : sField.control.value.trim()]]);
+    return { req, bad };
+  }
+  function fieldFor(name) {
+    return { structure: stField, setting: setField, reading_V: vField, electrode: elField, reading_kind: kField, temp_C: tField,
+      structure_temp_C: tsField, polarisation_mV: pField, salinity: sField, chloride_mg_per_L: sField }[name] || null;
+  }
+  function render(r) {
+    fill(ui.result, ...cpResultNodes(r), assumptionsBox(r.assumptions), derivation(r.steps), cautionsBox(r.cautions), sourcesLine(r.sources, r.data_version));
+  }
+  const run = runner(ui, "cp", render, fieldFor);
+  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
+  stField.control.addEventListener("change", () => fillSelect(setField.control, settingOptions(ds, stField.control.value), setField.control.value));
+  ui.formBox.addEventListener("input", changed);
+  ui.formBox.addEventListener("change", changed);
+  const first = collect();
+  run.now(first.req, first.bad);
+}
+
+export const FIELD_CALCULATORS = { measured: measuredCalc, cp: cpCalc };
