@@ -9,9 +9,10 @@ Called last from the build hooks (``write_offline_support``), when every other f
   mixed cache: the install fails and is tried again on a later visit.
 * For pages opened from a file manager (file://), where no service worker or Pyodide can run,
   the search index is also written as a script (``search/search_index.js``, which
-  mkdocs-material loads on file:// pages instead of fetching the JSON) and the small
-  ``iframe-worker`` shim from npm is staged so that material's search worker can start there.
-  ``docs/assets/js/file-pages.js`` makes directory links open their ``index.html``.
+  mkdocs-material loads on file:// pages instead of fetching the JSON). There
+  ``docs/assets/js/file-worker.js`` runs material's search worker in a frame, and
+  ``docs/assets/js/file-pages.js`` makes folder links open their ``index.html`` and tells the
+  calculator pages how to serve the site.
 """
 
 import base64
@@ -19,7 +20,6 @@ import hashlib
 import json
 import logging
 import os
-import shutil
 
 from mkdocs.exceptions import PluginError
 
@@ -32,11 +32,6 @@ log = logging.getLogger("mkdocs.plugins.couplewise.offline")
 SKIP = {"sw.js", "sitemap.xml.gz"}
 #: precached but left out of the version hash: the sitemap carries the build date, not content.
 UNHASHED = {"sitemap.xml"}
-
-#: the file:// worker shim (npm package ``iframe-worker``, pinned in package.json) and where it
-#: goes in the site; mkdocs.yml lists it under ``extra.polyfills`` so it loads before material.
-SHIM_SRC = os.path.join(ROOT, "node_modules", "iframe-worker", "shim", "index.js")
-SHIM_DEST = "assets/js/iframe-worker.js"
 
 
 def site_files(site_dir):
@@ -82,9 +77,18 @@ def url_for(rel):
     return rel
 
 
+def integrity(rel, digest):
+    """The Subresource Integrity value the service worker fetches a file with; none for ``.gz``
+    files, which a server may send with Content-Encoding: gzip (the browser then checks the
+    inflated bytes): their names carry their content hash instead."""
+    if rel.endswith(".gz"):
+        return ""
+    return "sha256-" + base64.b64encode(digest).decode("ascii")
+
+
 def precache_entries(digests):
     """[[url, integrity], ...] for the service worker, sorted by URL."""
-    return sorted([url_for(rel), "sha256-" + base64.b64encode(d).decode("ascii")] for rel, d in digests.items())
+    return sorted([url_for(rel), integrity(rel, d)] for rel, d in digests.items())
 
 
 def _runtime_meta(site_dir):
@@ -96,20 +100,15 @@ def _runtime_meta(site_dir):
     return {k: info.get(k) for k in ("data_version", "data_date", "build")}
 
 
-def write_file_url_support(site_dir):
-    """Write search/search_index.js and stage the worker shim (both used on file:// pages only)."""
+def write_search_index_script(site_dir):
+    """Write search/search_index.js, which mkdocs-material loads on file:// pages (where it
+    cannot fetch search_index.json)."""
     index = os.path.join(site_dir, "search", "search_index.json")
     if os.path.isfile(index):
         with open(index, encoding="utf-8") as fh:
             data = fh.read()
         with open(os.path.join(site_dir, "search", "search_index.js"), "w", encoding="utf-8") as fh:
             fh.write("var __index = " + data)
-    if not os.path.isfile(SHIM_SRC):
-        raise PluginError("node_modules/iframe-worker is missing (the search shim for file:// pages): "
-                           "run 'make setup' (npm ci)")
-    dest = os.path.join(site_dir, *SHIM_DEST.split("/"))
-    os.makedirs(os.path.dirname(dest), exist_ok=True)
-    shutil.copyfile(SHIM_SRC, dest)
 
 
 def write_service_worker(site_dir):
@@ -130,7 +129,7 @@ def write_service_worker(site_dir):
 
 def write_offline_support(site_dir):
     """Everything offline for a built site; the service worker last (it hashes every other file)."""
-    write_file_url_support(site_dir)
+    write_search_index_script(site_dir)
     version, count, size = write_service_worker(site_dir)
     log.info("offline: sw.js precaches %d files, %.1f MB, version %s", count, size / 1e6, version)
     return version

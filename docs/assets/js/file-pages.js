@@ -44,7 +44,10 @@
     var box = el("div", "admonition warning cw-file-notice");
     box.setAttribute("role", "alert");
     var pre = el("pre");
-    pre.append(el("code", null, command));
+    var code = el("code", null, command);
+    code.style.whiteSpace = "pre-wrap"; // the folder can be long: wrap rather than hide it
+    code.style.wordBreak = "break-all";
+    pre.append(code);
     box.append(
       el("p", "admonition-title", "This calculator cannot run from a file"),
       el("p", null, "Browsers do not let the Python runtime start on a page opened from the file manager. " +
