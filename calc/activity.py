@@ -235,7 +235,7 @@ def ion_size(sp):
     References:
         J. Kielland, J. Am. Chem. Soc. 59 (1937) 1675, table of å (via the dataset).
 
-    >>> ion_size("Xx9+") is None
+    >>> ion_size("Xx3+") is None
     True
     """
     if isinstance(sp, str):

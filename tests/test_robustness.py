@@ -30,6 +30,7 @@ import io
 import json
 import math
 import os
+import re
 
 import pytest
 from hypothesis import HealthCheck, assume, given, settings
@@ -38,7 +39,8 @@ from hypothesis import strategies as st
 from calc import api, cli
 from calc.activity import VALID_I_MAX
 from calc.conditions import ACTIVITY_MAX, PRESSURE_MAX_ATM
-from calc.constants import nernst_slope, T_ZERO_C
+from calc.constants import T_ZERO_C, nernst_slope
+from calc.fieldcheck import READING_KINDS, SETTINGS, STRUCTURES
 
 # ---------------------------------------------------------------------------- the settings profile
 
@@ -168,6 +170,9 @@ def mapping(keys, value):
 
 
 SPECIES_KEYS = ION_NAMES + ["O2", "H2", "Cl2", "H2O", "H2O2", "H2S", "Br2", "I2"]
+#: a free-text label (names a part in a site reading)
+LABEL = F(st.one_of(st.sampled_from(["pile", "ladder", "hull", "Flange A"]), st.text(min_size=1, max_size=30)),
+          st.one_of(st.sampled_from(["", " ", "x" * 500]), JUNK))
 MODEL = F(st.sampled_from(list(VALID_I_MAX) + ["Davies", "DAVIES", "dh", "extended-dh", " limiting "]),
           st.one_of(st.sampled_from(["truesdell-jones", "pitzer", "", "sit"]), JUNK))
 CONDITIONS = {
@@ -208,8 +213,29 @@ FIELDS = {
                                st.one_of(st.just([]), st.lists(ident(MATERIAL_IDS).any, min_size=1, max_size=4),
                                          JUNK))}),
     "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e300, [1e4, 1e4 + 1])}, {}),
+    "measured": ({"a_name": LABEL, "a_reading_V": number(-2.5, 1.5, [-0.85, -0.7]), "b_name": LABEL,
+                  "b_reading_V": number(-2.5, 1.5, [-0.2, 0]), "electrode": ident(REF_IDS), "env": ident(ENV_IDS)},
+                 {"temp_C": CONDITIONS["temp_C"], "salinity": number(1e-3, 45, [2, 35]),
+                  "chloride_mg_per_L": number(1e-3, 25000, [19000]), "a_material": ident(MATERIAL_IDS),
+                  "b_material": ident(MATERIAL_IDS)}),
+    "cp": ({"structure": ident(sorted(STRUCTURES)), "setting": ident(sorted(SETTINGS)),
+            "reading_V": number(-2.5, 1.5, [-0.85, -1.05, -1.1]), "electrode": ident(REF_IDS),
+            "reading_kind": F(st.sampled_from(list(READING_KINDS) + ["ON", "Instant-Off"]),
+                              st.one_of(st.sampled_from(["off", "", "instant off"]), JUNK))},
+           {"temp_C": CONDITIONS["temp_C"], "polarisation_mV": number(-500, 500, [100, 0]),
+            "structure_temp_C": number(-5, 100, [40, 60]), "salinity": number(1e-3, 45, [2, 35]),
+            "chloride_mg_per_L": number(1e-3, 25000, [19000])}),
 }
 assert sorted(FIELDS) == sorted(api.ENTRY_POINTS), "every entry point has a request strategy here"
+
+
+#: fields of which a request may give one only (activity: exactly one source of ionic strength;
+#: site readings: salinity or chloride), and whether none is allowed
+ONE_SOURCE = {"electrode": (("ionic_strength", "env", "composition"), True),
+              "couple": (("ionic_strength", "env", "composition"), True),
+              "activity": (("ionic_strength", "env", "composition"), False),
+              "measured": (("salinity", "chloride_mg_per_L"), True),
+              "cp": (("salinity", "chloride_mg_per_L"), True)}
 
 
 @st.composite
@@ -221,6 +247,10 @@ def requests(draw, name):
     if mode == 0:  # not an object, or an object of junk
         return draw(st.one_of(JUNK, st.dictionaries(st.text(max_size=8), JUNK, max_size=4)))
     chosen = draw(st.lists(st.sampled_from(sorted(optional)), unique=True, max_size=len(optional))) if optional else []
+    if mode <= 13 and name in ONE_SOURCE:  # one source of ionic strength (activity: exactly one)
+        group, at_most = ONE_SOURCE[name]
+        chosen = [k for k in chosen if k not in group] + draw(st.sampled_from(
+            [[k] for k in group] + ([[]] if at_most else [])))
     fields = {**required, **{k: optional[k] for k in chosen}}
     if mode <= 7:  # every field acceptable: the calculation runs (or refuses a combination)
         return {k: draw(f.good) for k, f in fields.items()}
@@ -238,7 +268,7 @@ def requests(draw, name):
     return req
 
 
-def check_api(name, req):
+def check_api(name, req, label="api"):
     """One call of an entry point: a result or one clear error, plain JSON either way."""
     out = api.call(name, req)  # any exception escaping fails the test
     text = json.dumps(out, allow_nan=False, ensure_ascii=False)
@@ -263,7 +293,7 @@ def check_api(name, req):
         # the message names the field it is about
         assert msg.startswith(field) or field == "dataset", err
         assert len(msg) <= 2000, f"error message of {len(msg)} characters"
-    _count(f"api {name}", not out["ok"])
+    _count(f"{label} {name}", not out["ok"])
     return out
 
 
@@ -339,69 +369,109 @@ def check_cli(label, argv, json_out=False):
 ARG_TEXT = st.one_of(st.text(max_size=12), st.sampled_from(NUMBER_TEXT + WEIRD_TEXT))
 
 
-def num_arg(lo, hi):
-    return st.one_of(st.floats(lo, hi, allow_nan=False).map(repr), st.integers(int(lo), int(hi)).map(str),
-                     st.sampled_from(NUMBER_TEXT), st.sampled_from(["1e308", "-1e308", "5e-324", "1" + "0" * 400]),
-                     st.text(max_size=6))
+def num_arg(lo, hi, edges=()):
+    """A number argument accepted from lo to hi; bad: text, non-finite, overflowing, out of range."""
+    good = st.one_of(st.floats(lo, hi, allow_nan=False).map(repr), st.integers(math.ceil(lo), math.floor(hi)).map(str),
+                     st.sampled_from([lo, hi, *edges]).map(repr))
+    bad = st.one_of(st.sampled_from(NUMBER_TEXT), st.sampled_from(["1e308", "-1e308", "1" + "0" * 400, "nan", "-inf"]),
+                    st.text(max_size=6), st.floats(hi, 1e300, exclude_min=True).map(repr),
+                    st.floats(-1e300, lo, exclude_max=True).map(repr))
+    return F(good, bad)
 
 
 def arg_id(pool):
-    return st.one_of(st.sampled_from(pool), st.sampled_from(pool), st.sampled_from(pool).map(str.lower), ARG_TEXT)
+    real = st.sampled_from(pool)
+    return F(st.one_of(real, real, real.map(str.lower)), ARG_TEXT)
 
 
-def pairs(keys, lo, hi):
-    """SPECIES=VALUE arguments, some malformed."""
-    good = st.builds(lambda k, v: f"{k}={v}", st.sampled_from(keys), num_arg(lo, hi))
-    return st.one_of(good, good, ARG_TEXT, st.builds(lambda k: f"{k}=", st.sampled_from(keys)))
+def pairs(keys, value):
+    """SPECIES=VALUE arguments; bad: malformed pairs or bad values."""
+    key = st.sampled_from(keys)
+    return F(st.builds(lambda k, v: f"{k}={v}", key, value.good),
+             st.one_of(ARG_TEXT, key.map(lambda k: f"{k}="), st.builds(lambda k, v: f"{k}={v}", key, value.bad)))
 
 
-def options(spec):
-    """A list of option arguments: each (flag, value strategy or None for a switch) maybe present."""
-    items = [st.one_of(st.just([]), (st.just([flag]) if val is None else val.map(lambda v, f=flag: [f, v])))
-             for flag, val in spec]
-    return st.tuples(*items).map(lambda groups: [a for g in groups for a in g]) if items else st.just([])
-
-
+SWITCH = None
+LABEL_ARG = F(LABEL.good, st.one_of(st.sampled_from(["", " ", "x" * 500]), ARG_TEXT))
+MODEL_ARG = F(st.sampled_from(list(VALID_I_MAX)), ARG_TEXT)
 COND_OPTS = [
-    ("--temp", num_arg(-5, 105)), ("--activity", pairs(SPECIES_KEYS, 1e-14, 20)),
-    ("--activity", pairs(SPECIES_KEYS, 1e-14, 20)), ("--molality", pairs(SPECIES_KEYS, 1e-14, 6)),
-    ("--ionic-strength", num_arg(0, 6)), ("--env", arg_id(ENV_IDS)),
-    ("--model", st.one_of(st.sampled_from(list(VALID_I_MAX)), ARG_TEXT)), ("--pH", num_arg(-3, 17)),
-    ("--pressure", pairs(["O2", "H2", "Cl2"], 1e-9, 50)), ("--json", None),
+    ("--temp", num_arg(0, 100, [25])), ("--activity", pairs(SPECIES_KEYS, num_arg(1e-12, 10, [1]))),
+    ("--activity", pairs(SPECIES_KEYS, num_arg(1e-12, 10, [1]))), ("--molality", pairs(SPECIES_KEYS, num_arg(1e-9, 5))),
+    ("--ionic-strength", num_arg(0, 5, [0.5])), ("--env", arg_id(ENV_IDS)), ("--model", MODEL_ARG),
+    ("--pH", num_arg(-2, 16, [7])), ("--pressure", pairs(["O2", "H2", "Cl2"], num_arg(1e-6, 50, [0.21]))),
+    ("--json", SWITCH),
 ]
-
+#: command -> (positional arguments, required options, optional options, options of which one only)
 COMMANDS = {
-    "electrode": st.tuples(arg_id(HALF_IDS).map(lambda x: [x]), options(COND_OPTS)),
-    "couple": st.tuples(st.tuples(arg_id(HALF_IDS), arg_id(HALF_IDS)).map(list), options(COND_OPTS)),
-    "convert": st.tuples(num_arg(-12, 12).map(lambda x: [x]),
-                         options([("--from", arg_id(REF_IDS)), ("--to", arg_id(REF_IDS)), ("--temp", num_arg(-5, 105)),
-                                  ("--pH", num_arg(-3, 17)), ("--json", None)])),
-    "activity": st.tuples(arg_id(ION_NAMES).map(lambda x: [x]),
-                          options([("--ionic-strength", num_arg(0, 6)),
-                                   ("--model", st.one_of(st.sampled_from(list(VALID_I_MAX)), ARG_TEXT)),
-                                   ("--temp", num_arg(-5, 105)), ("--json", None)])),
-    "joint": st.tuples(st.tuples(arg_id(MATERIAL_IDS), arg_id(MATERIAL_IDS)).map(list),
-                       options([("--env", arg_id(ENV_IDS)), ("--area-ratio", num_arg(1e-5, 1e5)), ("--json", None)])),
-    "matrix": st.tuples(st.just([]), options([
-        ("--env", arg_id(ENV_IDS)),
-        ("--materials", st.one_of(st.lists(arg_id(MATERIAL_IDS), max_size=4).map(",".join), ARG_TEXT)),
-        ("--csv", None), ("--json", None)])),
-    "rate": st.tuples(st.just([]), options([("--material", arg_id(MATERIAL_IDS)),
-                                            ("--current-density", num_arg(0, 1e5)), ("--json", None)])),
+    "electrode": ([arg_id(HALF_IDS)], [], COND_OPTS, ("--ionic-strength", "--env")),
+    "couple": ([arg_id(HALF_IDS), arg_id(HALF_IDS)], [], COND_OPTS, ("--ionic-strength", "--env")),
+    "convert": ([num_arg(-10, 10, [-0.85])], [("--from", arg_id(REF_IDS)), ("--to", arg_id(REF_IDS))],
+                [("--temp", num_arg(0, 100)), ("--pH", num_arg(-2, 16, [7])), ("--json", SWITCH)], ()),
+    "activity": ([arg_id(ION_NAMES)], [("--ionic-strength", num_arg(0, 5, list(VALID_I_MAX.values())))],
+                 [("--model", MODEL_ARG), ("--temp", num_arg(0, 100)), ("--json", SWITCH)], ()),
+    "joint": ([arg_id(MATERIAL_IDS), arg_id(MATERIAL_IDS)], [("--env", arg_id(ENV_IDS))],
+              [("--area-ratio", num_arg(1e-3, 1e3, [1])), ("--json", SWITCH)], ()),
+    "matrix": ([], [("--env", arg_id(ENV_IDS))],
+               [("--materials", F(st.lists(st.sampled_from(MATERIAL_IDS), min_size=1, max_size=5).map(",".join),
+                                  st.one_of(ARG_TEXT, st.lists(arg_id(MATERIAL_IDS).any, max_size=4).map(",".join)))),
+                ("--csv", SWITCH), ("--json", SWITCH)], ()),
+    "rate": ([], [("--material", arg_id(MATERIAL_IDS)), ("--current-density", num_arg(0, 1e5, [1]))],
+             [("--json", SWITCH)], ()),
+    "measured": ([], [("--a", LABEL_ARG), ("--a-reading", num_arg(-2, 1, [-0.85])), ("--b", LABEL_ARG),
+                      ("--b-reading", num_arg(-2, 1, [-0.2])), ("--electrode", arg_id(REF_IDS)),
+                      ("--env", arg_id(ENV_IDS))],
+                 [("--temp", num_arg(0, 100)), ("--salinity", num_arg(1e-3, 45, [35])),
+                  ("--chloride", num_arg(1e-3, 25000, [19000])), ("--a-material", arg_id(MATERIAL_IDS)),
+                  ("--b-material", arg_id(MATERIAL_IDS)), ("--json", SWITCH)], ("--salinity", "--chloride")),
+    "cp": ([num_arg(-2, 1, [-0.85, -1.05])],
+           [("--structure", arg_id(sorted(STRUCTURES))), ("--setting", arg_id(sorted(SETTINGS))),
+            ("--electrode", arg_id(REF_IDS)), ("--kind", F(st.sampled_from(READING_KINDS), ARG_TEXT))],
+           [("--temp", num_arg(0, 100)), ("--structure-temp", num_arg(0, 100)), ("--polarisation", num_arg(-500, 500)),
+            ("--salinity", num_arg(1e-3, 45, [35])), ("--chloride", num_arg(1e-3, 25000)), ("--json", SWITCH)],
+           ("--salinity", "--chloride")),
 }
 assert sorted(COMMANDS) == sorted(api.ENTRY_POINTS), "every calculation command has an argument strategy here"
+
+
+@st.composite
+def command_lines(draw, command):
+    """An argument list for one command: every argument acceptable (a third of the cases), one
+    bad, a required option missing, an argument of junk added, or everything good or bad."""
+    positional, required, optional, one_only = COMMANDS[command]
+    mode = draw(st.integers(0, 19))
+    chosen = draw(st.lists(st.sampled_from(range(len(optional))), unique=True)) if optional else []
+    opts = required + [optional[i] for i in sorted(chosen)]
+    if mode <= 13:  # keep one of the options that exclude each other
+        seen = [i for i, (flag, _) in enumerate(opts) if flag in one_only]
+        opts = [o for i, o in enumerate(opts) if i not in seen[1:]]
+    args = [("", f) for f in positional] + opts
+    bad = draw(st.sampled_from(range(len(args)))) if args and 8 <= mode <= 13 else None
+
+    def value(i, f):
+        if f is SWITCH:
+            return None
+        return draw(f.bad if i == bad else f.good if mode <= 13 else f.any)
+
+    words = [(flag, value(i, f)) for i, (flag, f) in enumerate(args)]
+    if mode == 14 and required:  # a required option missing
+        drop = draw(st.sampled_from([flag for flag, _ in required]))
+        words = [w for w in words if w[0] != drop]
+    elif mode == 15:  # a stray argument
+        words.append(("", draw(ARG_TEXT)))
+    pos = [v for flag, v in words if not flag]
+    flags = [a for flag, v in words if flag for a in ([flag] if v is None else [flag, v])]
+    # options may come before or after the positional arguments, as a user types them
+    if draw(st.booleans()) and not any(p.startswith("-") for p in pos):
+        return [command] + flags + pos
+    return [command] + pos + flags
 
 
 @pytest.mark.parametrize("command", sorted(COMMANDS))
 def test_command_exits_0_or_2_with_one_line(command):
     @ROBUST
-    @given(COMMANDS[command], st.randoms(use_true_random=False))
-    def run(parts, rnd):
-        positional, opts = parts
-        # options may come before or after the positional arguments, as a user types them
-        argv = [command] + (opts + positional if rnd.random() < 0.3 and not any(
-            p.startswith("-") for p in positional) else positional + opts)
-        check_cli(command, argv, json_out="--json" in opts and "--csv" not in opts)
+    @given(command_lines(command))
+    def run(argv):
+        check_cli(command, argv, json_out="--json" in argv and "--csv" not in argv)
 
     run()
 
@@ -418,11 +488,15 @@ def test_command_line_junk():
         assume(argv[:2] != ["data", "check"])  # the data folder check has a test of its own
         code, out, err = run_cli(argv)
         assert "Traceback" not in out + err
-        assert code in (0, 1, 2), (argv, code)
-        if code == 2:
-            assert out == "" or argv == [] or argv[0] not in COMMANDS, (argv, out)
-            lines = err.splitlines()
-            assert len(lines) <= 1 or "usage:" in out, (argv, err)
+        assert code in (0, 2), (argv, code)
+        if code == 2 and err == "":
+            # no command at all (e.g. only "--"): the overview of the commands, on stdout
+            assert out.startswith("usage: couplewise") and not [a for a in argv if a in COMMANDS or a == "data"], \
+                (argv, out)
+        elif code == 2:
+            assert out == "" and err.startswith("couplewise: ") and err.count("\n") == 1, (argv, out, err)
+        else:
+            assert err == "" and out.strip(), (argv, err)
         _count("cli junk arguments", code != 0)
 
     run()
@@ -435,7 +509,7 @@ def test_data_check_with_bad_folder_arguments(tmp_path):
     empty = tmp_path / "empty"
     empty.mkdir()
     for arg in [str(tmp_path / "missing"), str(afile), str(empty), str(tmp_path / "ŋ-ünïcode"), " ",
-                "\u0000" if False else "nul-free", str(tmp_path / ("x" * 200))]:
+                str(tmp_path / ("x" * 200))]:
         code, out, err = run_cli(["data", "check", arg])
         assert "Traceback" not in out + err
         assert code in (1, 2), (arg, code, out, err)
@@ -452,7 +526,7 @@ def test_data_check_with_bad_folder_arguments(tmp_path):
 # ---------------------------------------------------------------------------- extreme but valid input
 
 def ok(name, req):
-    out = check_api(name, req)
+    out = check_api(name, req, "extreme")
     assert out["ok"], (req, out)
     return out["result"]
 
@@ -540,7 +614,7 @@ def test_tiny_values_that_underflow_give_an_error_or_a_finite_result():
                 {"id": "O2/OH-", "activities": {"H2O": 5e-324}, "pH": 2},
                 {"id": "O2/OH-", "activities": {"H2O": 1e-300}, "pH": 0},
                 {"id": "Zn2+/Zn", "activities": {"Zn2+": 5e-324}}):
-        check_api("electrode", req)
+        check_api("electrode", req, "extreme")
 
 
 @pytest.mark.parametrize("model", sorted(VALID_I_MAX))
@@ -600,5 +674,125 @@ def test_huge_values_and_ions_no_double_holds():
             ("activity", {"species": "H" + "9" * 5000 + "+", "ionic_strength": 0.1}, "species"),
             ("activity", {"species": "Zn2+", "composition": {"Zn" + "9" * 30 + "+": 0.1}}, "species"),
     ):
-        out = check_api(name, req)
+        out = check_api(name, req, "extreme")
         assert not out["ok"] and out["error"]["field"].startswith(field), (name, out)
+
+
+# ---------------------------------------------------------------------------- bad data, the build
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+BROKEN = os.path.join(ROOT, "tests", "fixtures", "broken")
+
+
+def _tree(folder):
+    """{relative path: bytes} of every file under a folder."""
+    out = {}
+    for dirpath, _, files in os.walk(folder):
+        for name in files:
+            path = os.path.join(dirpath, name)
+            with open(path, "rb") as fh:
+                out[os.path.relpath(path, folder)] = fh.read()
+    return out
+
+
+@pytest.mark.parametrize("case", sorted(os.listdir(BROKEN)))
+def test_the_build_gate_refuses_every_broken_fixture(case):
+    """What the site build calls first (sitebuild.dataset.load_project_bundle) refuses each
+    byte-level broken folder of the corpus with every problem as file:record:field: message
+    (the corpus and its data-check messages: tests/test_validate.py)."""
+    from sitebuild.dataset import DataProblems, load_project_bundle
+
+    with pytest.raises(DataProblems) as exc:
+        load_project_bundle(os.path.join(BROKEN, case), use_cache=False)
+    assert exc.value.problems
+    for line in exc.value.problems:
+        assert re.match(r"^[a-z_]+\.yaml:[^:]+:[^:]*: \S", line), line
+
+
+def _fake_site(out_dir, files=("index.html", "sw.js", "csp.txt")):
+    os.makedirs(out_dir)
+    for name in files:
+        with open(os.path.join(out_dir, name), "w", encoding="utf-8") as fh:
+            fh.write("new " + name)
+
+
+def _old_site(dest):
+    os.makedirs(os.path.join(dest, "sub"))
+    for rel in ("index.html", "sw.js", "csp.txt", "sub/page.html"):
+        with open(os.path.join(dest, rel), "w", encoding="utf-8") as fh:
+            fh.write("old " + rel)
+    return _tree(dest)
+
+
+def test_atomic_build_swaps_only_a_complete_build(tmp_path):
+    from sitebuild.atomic import BuildFailed, build_site
+
+    dest = str(tmp_path / "site")
+    before = _old_site(dest)
+    # a build that fails, one that is incomplete, one that crashes: the old site stays, no leftovers
+    for builder in (lambda out, env: (1, "ERROR - broken\n"),
+                    lambda out, env: (_fake_site(out, ("index.html",)), (0, ""))[1],
+                    lambda out, env: (_ for _ in ()).throw(OSError("disk full"))):
+        with pytest.raises((BuildFailed, OSError)):
+            build_site(dest, builder=builder)
+        assert _tree(dest) == before
+        assert sorted(os.listdir(tmp_path)) == ["site"]
+    # a complete build replaces the old site entirely
+    build_site(dest, builder=lambda out, env: (_fake_site(out), (0, "ok"))[1])
+    assert _tree(dest) == {"index.html": b"new index.html", "sw.js": b"new sw.js", "csp.txt": b"new csp.txt"}
+    assert sorted(os.listdir(tmp_path)) == ["site"]
+    # with no site before, too
+    fresh = str(tmp_path / "fresh")
+    build_site(fresh, builder=lambda out, env: (_fake_site(out), (0, "ok"))[1])
+    assert os.path.isfile(os.path.join(fresh, "sw.js"))
+
+
+def test_atomic_build_passes_the_data_folder(tmp_path, monkeypatch):
+    from sitebuild.atomic import build_site
+
+    seen = {}
+    monkeypatch.setenv("COUPLEWISE_DATA_DIR", "/from/the/environment")
+
+    def builder(out, env):
+        seen["data"] = env.get("COUPLEWISE_DATA_DIR")
+        _fake_site(out)
+        return 0, ""
+
+    build_site(str(tmp_path / "a"), builder=builder)
+    assert seen["data"] == "/from/the/environment"
+    build_site(str(tmp_path / "b"), data_dir=str(tmp_path / "other"), builder=builder)
+    assert seen["data"] == str(tmp_path / "other")
+
+
+def test_make_site_with_bad_data_leaves_the_previous_site_and_lists_the_problems(tmp_path, capsys):
+    """The real build (``make site`` runs ``python -m sitebuild.atomic site``) from a copy of data/
+    with one record given twice: exit 1, every problem printed, the previous site untouched."""
+    import shutil
+
+    from sitebuild import atomic
+
+    bad = tmp_path / "data"
+    shutil.copytree(os.path.join(ROOT, "data"), bad)
+    path = bad / "materials.yaml"
+    text = path.read_text(encoding="utf-8")
+    first = text.index("\n  - id: ") + 1
+    second = text.index("\n  - id: ", first) + 1
+    path.write_text(text[:second] + text[first:second] + text[second:], encoding="utf-8")
+    dup = re.match(r"  - id: (\S+)", text[first:]).group(1)
+
+    dest = str(tmp_path / "site")
+    before = _old_site(dest)
+    status = atomic.main([dest, "--data", str(bad)])
+    err = capsys.readouterr().err
+    assert status == 1
+    assert _tree(dest) == before
+    assert not os.path.exists(dest + ".tmp") and not os.path.exists(dest + ".old")
+    assert re.search(rf"^materials\.yaml:{re.escape(dup)}:id: .*already used", err, re.M), err
+    assert "left as it was" in err and "Traceback" not in err
+
+
+def test_makefile_site_target_uses_the_atomic_build():
+    with open(os.path.join(ROOT, "Makefile"), encoding="utf-8") as fh:
+        text = fh.read()
+    recipe = re.search(r"^site:.*\n((?:\t.*\n)+)", text, re.M)
+    assert recipe and "-m sitebuild.atomic site" in recipe.group(1), "make site must build through sitebuild/atomic.py"

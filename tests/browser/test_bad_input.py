@@ -1,0 +1,110 @@
+"""Bad input typed into every calculator: a message next to the field, no console error, and the
+page stays usable (typing the good value back brings the same result back).
+
+For every number field of every calculator page the same classes of bad input as the property
+tests of tests/test_robustness.py are typed: text, NaN, Infinity, an overflowing number,
+unicode digits and markup, which no number field accepts; and empty, negative, zero and huge
+values, which a field either accepts (then no message) or refuses with a message.
+"""
+
+import os
+
+import pytest
+
+pytestmark = pytest.mark.browser
+
+RUNTIME_MS = 240_000
+#: never a number, in any field
+NEVER = ["abc", "NaN", "Infinity", "-Infinity", "1e999", "１２", "٣", "½", "<b>1</b>", "1..2", "12 abc", "🧪"]
+#: a number some fields accept and others refuse (or, for empty, a field that may be left empty)
+MAYBE = ["", "-5", "0", "-0", "1e308", "-1e308", "5e-324", "100000"]
+RESULT_READY = "performance.getEntriesByName('cw-result-painted').length > 0"
+SIGNATURE = ("[...document.querySelectorAll('.cw-result .cw-big, .cw-result [data-cw-value]')]"
+             ".map(e => e.innerText.trim()).join(' | ')")
+FIELDS = """[...document.querySelectorAll('.cw-form input[inputmode=decimal]')]
+  .filter(i => i.offsetParent !== null).map(i => i.id)"""
+MESSAGE = """(id) => {
+  const input = document.getElementById(id), msg = document.getElementById(id + '-msg');
+  return {text: msg ? msg.textContent : null, beside: !!(msg && input.closest('.cw-field').contains(msg)),
+          invalid: input.getAttribute('aria-invalid')};
+}"""
+
+
+def calculator_paths():
+    """The six calculators that the runtime answers (their pages are in docs/calculators/)."""
+    return ["couple", "electrode", "convert", "activity", "joint", "matrix"]
+
+
+def test_every_calculator_page_is_listed():
+    docs = os.path.join(os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__)))),
+                        "docs", "calculators")
+    have = {n[:-3] for n in os.listdir(docs) if n.endswith(".md") and n != "index.md"}
+    assert set(calculator_paths()) <= have
+
+
+def message(page, fid):
+    return page.evaluate(MESSAGE, fid)
+
+
+def type_into(page, fid, value):
+    field = page.locator(f'[id="{fid}"]')
+    field.fill(value)
+    field.dispatch_event("change")
+
+
+@pytest.mark.parametrize("name", calculator_paths())
+def test_bad_input_in_every_field(served, guarded, name):
+    page, guard = guarded
+    page.goto(served.url(f"calculators/{name}/"))
+    page.wait_for_function(RESULT_READY, timeout=RUNTIME_MS)
+    page.wait_for_function("!document.querySelector('.cw-result').hasAttribute('aria-busy')")
+    before = page.evaluate(SIGNATURE)
+    fields = page.evaluate(FIELDS)
+    if name == "matrix":
+        assert fields == []  # the matrix has lists to choose from, nothing to type
+    else:
+        assert fields, f"{name}: no number field found"
+    checked = 0
+    for fid in fields:
+        original = page.input_value(f'[id="{fid}"]')
+        for value in NEVER:
+            type_into(page, fid, value)
+            page.wait_for_function(f"document.getElementById({fid!r} + '-msg').textContent.length > 0",
+                                   timeout=10_000)
+            m = message(page, fid)
+            assert m["beside"] and m["invalid"] == "true", (fid, value, m)
+            assert "\n" not in m["text"] and len(m["text"]) < 300, (fid, value, m)
+            assert value.strip() in m["text"] or "number" in m["text"] or "Enter" in m["text"], (fid, value, m)
+            assert page.locator(".cw-result.cw-stale").count() == 1, f"{fid} = {value!r}: old result not greyed"
+            checked += 1
+        for value in MAYBE:
+            type_into(page, fid, value)
+            page.wait_for_timeout(250)
+            m = message(page, fid)
+            if m["text"]:
+                assert m["beside"] and m["invalid"] == "true", (fid, value, m)
+            checked += 1
+        # the good value back: no message, and the result is the one from before
+        type_into(page, fid, original)
+        page.wait_for_function(f"document.getElementById({fid!r} + '-msg').textContent === ''", timeout=10_000)
+    if fields:
+        page.wait_for_function("!document.querySelector('.cw-result').classList.contains('cw-stale')"
+                               " && !document.querySelector('.cw-result').hasAttribute('aria-busy')",
+                               timeout=RUNTIME_MS)
+        page.wait_for_function(f"({SIGNATURE}) === {before!r}", timeout=60_000)
+    assert page.evaluate(SIGNATURE) == before
+    assert page.locator(".cw-form-msg").inner_text().strip() == ""
+    assert guard.console_errors == [], guard.console_errors
+    assert checked == len(fields) * (len(NEVER) + len(MAYBE))
+
+
+def test_matrix_refuses_an_unknown_material_in_the_url(served, guarded):
+    """The matrix has nothing to type; its inputs come from lists and the URL. Unknown ids and
+    junk in the URL are ignored (the lists hold known ids only) and the page still answers."""
+    page, guard = guarded
+    page.goto(served.url("calculators/matrix/?env=%3Cb%3E&m=nope,%F0%9F%A7%AA,zinc,,copper"))
+    page.wait_for_function(RESULT_READY, timeout=RUNTIME_MS)
+    page.wait_for_function("!document.querySelector('.cw-result').hasAttribute('aria-busy')")
+    heads = page.locator(".cw-matrix th[scope=row]").all_inner_texts()
+    assert len(heads) == 2 and any("Zinc" in h for h in heads), heads
+    assert guard.console_errors == [], guard.console_errors
