@@ -130,27 +130,67 @@ def clone_record(kind, rec, k, renamer):
     return out
 
 
-def synthesize(out_dir, factor=10, data_dir=DATA):
+def _cited(obj, acc):
+    """Source ids cited anywhere in obj."""
+    if isinstance(obj, dict):
+        for key, v in obj.items():
+            if key == "source" or key.endswith("_source") or key == "sources":
+                acc.update(v if isinstance(v, list) else [v])
+            else:
+                _cited(v, acc)
+    elif isinstance(obj, list):
+        for v in obj:
+            _cited(v, acc)
+    return acc
+
+
+def synthesize(out_dir, factor=10, data_dir=DATA, marker=None):
     """Write a data folder ``factor`` times the size of ``data_dir``; returns record counts
-    {kind: (shipped, synthetic)}."""
+    {kind: (shipped, synthetic)}. A ``marker`` is appended to the first source's note: the
+    records stay valid, the data version changes (as after a maintainer's edit).
+
+    Kinds this module does not know are copied as they are (not cloned); a source gets clones
+    only where clones cite it."""
     import yaml
 
     renamer = Renamer()
     os.makedirs(out_dir, exist_ok=True)
     shutil.copytree(os.path.join(data_dir, "schema"), os.path.join(out_dir, "schema"), dirs_exist_ok=True)
-    counts = {}
-    for kind in FILES:
-        with open(os.path.join(data_dir, kind + ".yaml"), encoding="utf-8") as fh:
-            records = yaml.safe_load(fh)[kind]
-        out = list(records)
+    docs = {}
+    for fname in sorted(os.listdir(data_dir)):
+        if fname.endswith(".yaml"):
+            with open(os.path.join(data_dir, fname), encoding="utf-8") as fh:
+                docs[fname[:-5]] = yaml.safe_load(fh)
+    out, counts = {}, {}
+    for kind, doc in docs.items():
+        records = doc.get(kind) if isinstance(doc, dict) else None
+        if kind not in FILES or kind == "sources" or not isinstance(records, list):
+            continue
+        recs = list(records)
         for k in range(1, factor):
-            out += [c for c in (clone_record(kind, r, k, renamer) for r in records) if c is not None]
-        counts[kind] = (len(records), len(out))
-        text = yaml.safe_dump({kind: out}, allow_unicode=True, sort_keys=False, width=120)
-        with open(os.path.join(out_dir, kind + ".yaml"), "w", encoding="utf-8") as fh:
-            fh.write(f"# yaml-language-server: $schema=schema/{kind}.schema.json\n")
-            fh.write(f"# Synthetic: the shipped {kind} and {factor - 1} renamed copies (benchmark only).\n")
-            fh.write(text)
+            recs += [c for c in (clone_record(kind, r, k, renamer) for r in records) if c is not None]
+        out[kind] = recs
+    if "sources" in docs:
+        records = docs["sources"]["sources"]
+        cited = _cited(out, set())
+        recs = list(records)
+        if marker and recs:
+            recs[0] = dict(recs[0], note=(recs[0].get("note", "") + f" [{marker}]").strip())
+        for k in range(1, factor):
+            recs += [clone_record("sources", r, k, renamer) for r in records if f"{r['id']}-c{k}" in cited]
+        out["sources"] = recs
+    for kind, doc in docs.items():
+        if kind in out:
+            counts[kind] = (len(doc[kind]), len(out[kind]))
+            text = yaml.safe_dump({kind: out[kind]}, allow_unicode=True, sort_keys=False, width=120)
+            with open(os.path.join(out_dir, kind + ".yaml"), "w", encoding="utf-8") as fh:
+                fh.write(f"# yaml-language-server: $schema=schema/{kind}.schema.json\n")
+                fh.write(f"# Synthetic: the shipped {kind} and {factor - 1} renamed copies (benchmark only).\n")
+                fh.write(text)
+        else:  # a kind this generator does not know: kept as it is
+            shutil.copy2(os.path.join(data_dir, kind + ".yaml"), os.path.join(out_dir, kind + ".yaml"))
+            recs = next((v for v in doc.values() if isinstance(v, list)), []) if isinstance(doc, dict) else []
+            counts[kind] = (len(recs), len(recs))
     return counts
 
 

@@ -1,0 +1,148 @@
+"""1. Time to first result: our couple calculator against a bare Pyodide page, same server, same run.
+
+Each run uses fresh chromium profiles (one for ours, one for the bare page; the order
+alternates between runs) and visits three times:
+
+- cold: fresh profile, nothing cached;
+- warm: a second visit in the same browser session (our service worker now controls the page);
+- restarted: the browser closed and started again on the same profile (a returning user).
+
+For ours two moments are taken from navigation start: the first computed number on screen
+(the build-time answer when the page's request is the precomputed one) and the runtime's own
+answer (performance mark ``cw-result-painted``). The bare page (bench/pages/bench-bare.html)
+loads the same Pyodide files with Pyodide's default start and runs ``1 + 1``.
+"""
+
+import os
+import shutil
+import tempfile
+
+from .common import (Guard, fr, fs, heading, launch_persistent, line, median, ratio)
+
+PAGE = "calculators/couple/"
+BARE = "bench-bare.html"
+VISITS = ("cold", "warm", "restarted")
+
+# Records when a number first appears (DOM mutation, then the next animation frame).
+OBSERVER = """
+(() => {
+  const rec = { first: null, firstFrame: null, early: false };
+  window.__cwBench = rec;
+  const look = () => {
+    if (rec.first !== null) return;
+    const el = document.querySelector(".cw-big-value");
+    if (!el || !el.textContent.trim()) return;
+    rec.first = performance.now();
+    rec.early = !!el.closest(".cw-early");
+    requestAnimationFrame(() => { rec.firstFrame = performance.now(); });
+    obs.disconnect();
+  };
+  const obs = new MutationObserver(look);
+  obs.observe(document, { childList: true, subtree: true, characterData: true });
+})();
+"""
+
+READ = """() => {
+  const rec = window.__cwBench || {};
+  const mark = (n) => { const e = performance.getEntriesByName(n); return e.length ? e[0].startTime : null; };
+  return { first: rec.firstFrame ?? rec.first, early: !!rec.early, final: mark("cw-result-painted"),
+           earlyMark: mark("cw-early-painted"), controlled: !!(navigator.serviceWorker && navigator.serviceWorker.controller) };
+}"""
+
+
+def _visit(ctx, url, timeout_ms=120_000):
+    page = ctx.new_page()
+    page.goto(url)
+    page.wait_for_function("() => performance.getEntriesByName('cw-result-painted').length > 0", timeout=timeout_ms)
+    page.wait_for_function("() => window.__cwBench && window.__cwBench.firstFrame !== null", timeout=timeout_ms)
+    rec = page.evaluate(READ)
+    rec["path"] = None
+    for w in page.workers:
+        if w.url.endswith("calc-worker.mjs"):
+            start = w.evaluate("self.cwStart || null")
+            rec["path"] = start and start.get("path")
+    return page, rec
+
+
+def _one(pw, server, which, guard):
+    """Cold, warm and restarted visits of one page in a fresh profile; {visit: record} in ms."""
+    url = server.url(PAGE if which == "ours" else BARE)
+    profile = tempfile.mkdtemp(prefix=f"couplewise-bench-{which}-")
+    out = {}
+    try:
+        ctx = launch_persistent(pw, profile, guard, OBSERVER)
+        page, out["cold"] = _visit(ctx, url)
+        if which == "ours":  # let the service worker finish precaching and take control
+            page.evaluate("navigator.serviceWorker.ready.then(() => true)")
+            page.wait_for_function("() => !!navigator.serviceWorker.controller", timeout=120_000)
+        page.close()
+        page, out["warm"] = _visit(ctx, url)
+        page.close()
+        ctx.close()
+        ctx = launch_persistent(pw, profile, guard, OBSERVER)
+        page, out["restarted"] = _visit(ctx, url)
+        ctx.close()
+    finally:
+        shutil.rmtree(profile, ignore_errors=True)
+    return out
+
+
+def run(server, runs=5):
+    from playwright.sync_api import sync_playwright
+
+    heading(f"1. Time to first result: couple calculator vs bare Pyodide page (medians of {runs} alternating runs)")
+    guard = Guard()
+    samples = {"ours": [], "bare": []}
+    with sync_playwright() as pw:
+        for i in range(runs):
+            order = ("ours", "bare") if i % 2 == 0 else ("bare", "ours")
+            for which in order:
+                samples[which].append(_one(pw, server, which, guard))
+    guard.check()
+
+    def med(which, visit, key):
+        vals = [s[visit][key] for s in samples[which] if s[visit].get(key) is not None]
+        return median(vals) / 1000 if vals else None
+
+    res = {"runs": runs}
+    for visit in VISITS:
+        res[visit] = {
+            "ours_first": med("ours", visit, "first"), "ours_answer": med("ours", visit, "final"),
+            "bare": med("bare", visit, "final"),
+            "ours_early_shown": sum(1 for s in samples["ours"] if s[visit]["early"]),
+            "paths": sorted({s[visit]["path"] or "none" for s in samples["ours"]}),
+            "controlled": sum(1 for s in samples["ours"] if s[visit]["controlled"]),
+        }
+    for visit in VISITS:
+        r = res[visit]
+        line(f"{visit:9s} ours: first number {fs(r['ours_first'])} "
+             f"({r['ours_early_shown']}/{runs} runs showed the build-time answer first), "
+             f"runtime answer {fs(r['ours_answer'])} [start: {', '.join(r['paths'])}; "
+             f"service worker controlled {r['controlled']}/{runs}]")
+        line(f"{visit:9s} bare: {fs(r['bare'])}")
+    line("all samples (s), ours runtime answer / bare:")
+    for visit in VISITS:
+        o = [round(s[visit]['final'] / 1000, 2) for s in samples["ours"]]
+        b = [round(s[visit]['final'] / 1000, 2) for s in samples["bare"]]
+        line(f"  {visit:9s} {o} / {b}")
+    for visit in VISITS:
+        r = res[visit]
+        r["ratio_answer"] = ratio(r["ours_answer"], r["bare"])
+        r["ratio_first"] = ratio(r["ours_first"], r["bare"])
+    line("ratio ours/bare, runtime answer:  " + ", ".join(f"{v} {fr(res[v]['ratio_answer'])}" for v in VISITS))
+    line("ratio ours/bare, first number:    " + ", ".join(f"{v} {fr(res[v]['ratio_first'])}" for v in VISITS))
+    res["samples"] = samples
+    return res
+
+
+if __name__ == "__main__":  # pragma: no cover
+    import sys
+
+    from .common import Server, bench_site
+
+    with bench_site(sys.argv[1] if len(sys.argv) > 1 else os.path.join(os.path.dirname(__file__), "..", "site")) as d:
+        srv = Server(d)
+        try:
+            run(srv, int(sys.argv[2]) if len(sys.argv) > 2 else 5)
+        finally:
+            srv.stop()
