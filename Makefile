@@ -23,11 +23,10 @@ node_modules/.installed: package.json package-lock.json
 	npm ci --no-audit --no-fund --loglevel=error
 	touch $@
 
-# Build into a temporary folder, then swap: a failed build leaves the previous site intact.
+# Build into a temporary folder, then swap: a failed build leaves the previous site intact
+# (sitebuild/atomic.py; COUPLEWISE_DATA_DIR=DIR builds from another data folder).
 site: setup
-	rm -rf site.tmp
-	$(VENV)/bin/mkdocs build --strict -d site.tmp
-	rm -rf site.old && { [ ! -d site ] || mv site site.old; } && mv site.tmp site && rm -rf site.old
+	$(PY) -m sitebuild.atomic site
 
 serve: site
 	$(PY) -m sitebuild.serve site --host $(HOST) --port $(PORT) --prefix $(PREFIX)
@@ -41,6 +40,11 @@ chromium:
 
 test: setup chromium
 	$(VENV)/bin/pytest
+
+# Benchmarks (bench/): ratios measured side by side in one run; results in docs/performance.md.
+# BENCH_ARGS passes options, e.g. make bench BENCH_ARGS="--only startup,bytes --runs 7".
+bench: setup site chromium
+	$(PY) -m bench site $(BENCH_ARGS)
 
 clean:
 	rm -rf site site.tmp site.old dist

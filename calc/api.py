@@ -24,6 +24,8 @@ ENTRY_POINTS = {
     "joint": "calc.joint:joint_entry",
     "matrix": "calc.joint:matrix_entry",
     "rate": "calc.rate:rate_entry",
+    "measured": "calc.fieldcheck:measured_joint_entry",
+    "cp": "calc.fieldcheck:cp_reading_entry",
 }
 
 

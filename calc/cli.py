@@ -6,6 +6,7 @@ status 2 and one line on stderr naming the field, the value and what is allowed.
 
 import argparse
 import json
+import re
 import sys
 
 from . import api
@@ -22,11 +23,22 @@ HEADLINE = {
               "verdict_text", "rate_mm_per_year"],
     "matrix": ["env", "materials"],
     "rate": ["material", "penetration_mm_per_year", "mass_loss_g_per_m2_day"],
+    "measured": ["anode", "cathode", "delta_E_V", "allowable_V", "verdict", "verdict_text", "a_V_SCE", "b_V_SCE",
+                 "agreement_text"],
+    "cp": ["verdict_label", "verdict_text", "reading_kind", "ir_drop"],
 }
+
+
+def _one_line(message, word_max=60):
+    """An argparse message as one short line: control characters escaped, long words cut."""
+    message = message.replace("\r", "\\r").replace("\n", "\\n")
+    return re.sub(r"\S{%d,}" % (word_max + 1), lambda m: m.group(0)[:word_max] + f"… ({len(m.group(0))} characters)",
+                  message)
 
 
 class _Parser(argparse.ArgumentParser):
     def error(self, message):  # one line, exit 2, no usage dump
+        message = _one_line(message)  # arguments are echoed in it: keep it one short line
         sys.stderr.write(f"couplewise: {message} (see 'couplewise {self.prog.split()[-1]} --help')\n"
                          if " " in self.prog else f"couplewise: {message} (see 'couplewise --help')\n")
         sys.exit(2)
@@ -80,6 +92,22 @@ def _conditions_request(ns):
     return req
 
 
+def _water_options(p):
+    g = p.add_mutually_exclusive_group()
+    g.add_argument("--salinity", type=float, metavar="S", help="salinity, for an Ag/AgCl seawater electrode [g/kg]")
+    g.add_argument("--chloride", type=float, metavar="MG_PER_L", help="chloride instead of salinity [mg/L]")
+
+
+def _water_request(ns, req):
+    if ns.salinity is not None:
+        req["salinity"] = ns.salinity
+    if ns.chloride is not None:
+        req["chloride_mg_per_L"] = ns.chloride
+    if ns.temp is not None:
+        req["temp_C"] = ns.temp
+    return req
+
+
 def build_parser():
     """The argument parser with every sub-command."""
     p = _Parser(prog="couplewise", description="Galvanic couples, electrode potentials and joints, offline.")
@@ -115,11 +143,33 @@ def build_parser():
     r = sub.add_parser("rate", help="ASTM G102 penetration and mass-loss rate from a current density")
     r.add_argument("--material", required=True)
     r.add_argument("--current-density", type=float, required=True, metavar="UA_PER_CM2")
+    ms = sub.add_parser("measured", help="judge a joint from two potentials measured on site")
+    ms.add_argument("--a", dest="a_name", required=True, metavar="NAME", help="label of the first part")
+    ms.add_argument("--a-reading", type=float, required=True, metavar="V", help="its reading [V vs electrode]")
+    ms.add_argument("--b", dest="b_name", required=True, metavar="NAME", help="label of the second part")
+    ms.add_argument("--b-reading", type=float, required=True, metavar="V", help="its reading [V vs electrode]")
+    ms.add_argument("--electrode", required=True, metavar="REF", help="reference electrode of both readings")
+    ms.add_argument("--env", required=True, metavar="ENV", help="environment (sets the allowable difference)")
+    ms.add_argument("--temp", type=float, default=None, metavar="C", help="electrode temperature [°C], default 25")
+    _water_options(ms)
+    ms.add_argument("--a-material", metavar="MATERIAL", help="material of the first part, for the published series")
+    ms.add_argument("--b-material", metavar="MATERIAL", help="material of the second part")
+    cp = sub.add_parser("cp", help="judge a cathodic-protection reading against the published criteria")
+    cp.add_argument("value", type=float, help="the reading [V vs electrode]")
+    cp.add_argument("--structure", required=True, metavar="ID", help="e.g. carbon-steel, aluminium")
+    cp.add_argument("--setting", required=True, metavar="ID", help="e.g. soil-aerobic, seawater-aerobic")
+    cp.add_argument("--electrode", required=True, metavar="REF")
+    cp.add_argument("--kind", dest="reading_kind", required=True, metavar="on|instant-off",
+                    help="on (current flowing) or instant-off (current just interrupted)")
+    cp.add_argument("--temp", type=float, default=None, metavar="C", help="electrode temperature [°C], default 25")
+    cp.add_argument("--structure-temp", type=float, default=None, metavar="C", help="structure temperature [°C]")
+    cp.add_argument("--polarisation", type=float, default=None, metavar="MV", help="polarisation shift [mV]")
+    _water_options(cp)
     d = sub.add_parser("data", help="maintainer tools for the dataset")
     dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
     dc = dsub.add_parser("check", help="validate a data folder; every problem as file:record:field: message")
     dc.add_argument("dir", nargs="?", default=None)
-    for sp in (e, c, v, a, j, m, r):
+    for sp in (e, c, v, a, j, m, r, ms, cp):
         sp.add_argument("--json", action="store_true", help="print one JSON object")
     return p
 
@@ -156,6 +206,21 @@ def _request(ns):
         return req
     if cmd == "rate":
         return {"material": ns.material, "current_density_uA_per_cm2": ns.current_density}
+    if cmd == "measured":
+        req = {"a_name": ns.a_name, "a_reading_V": ns.a_reading, "b_name": ns.b_name, "b_reading_V": ns.b_reading,
+               "electrode": ns.electrode, "env": ns.env}
+        for key in ("a_material", "b_material"):
+            if getattr(ns, key):
+                req[key] = getattr(ns, key)
+        return _water_request(ns, req)
+    if cmd == "cp":
+        req = {"structure": ns.structure, "setting": ns.setting, "reading_V": ns.value, "electrode": ns.electrode,
+               "reading_kind": ns.reading_kind}
+        if ns.structure_temp is not None:
+            req["structure_temp_C"] = ns.structure_temp
+        if ns.polarisation is not None:
+            req["polarisation_mV"] = ns.polarisation
+        return _water_request(ns, req)
     raise InputError("command", cmd, "a known command")
 
 

@@ -8,11 +8,11 @@ Wired in ``mkdocs.yml`` (``hooks: [sitebuild/hooks.py]``). What happens on a bui
 3. ``on_page_markdown``: ``<!-- cw:NAME -->`` markers in hand-written pages are replaced; an
    unknown marker fails the build.
 4. ``on_post_build``: the five Pyodide runtime files are copied from ``node_modules/pyodide``
-   and a pure-Python wheel of calc (with the same dataset inside) is built with
-   ``pip wheel --no-deps``; ``assets/runtime.json`` tells the page where they are. Two
-   start-up aids made under Node.js join them: the standard library precompiled to bytecode
-   and a memory snapshot with calc imported (both cached in ``node_modules/.cache``); and the
-   calculators' opening answers are computed under CPython (``assets/data/precomputed.json``).
+   and a pure-Python wheel of calc (with the same dataset inside) is written, byte-for-byte
+   reproducible; ``assets/runtime.json`` tells the page where they are. Two start-up aids
+   made under Node.js join them: the standard library precompiled to bytecode and a memory
+   snapshot with calc imported (both cached in ``node_modules/.cache``); and the calculators'
+   opening answers are computed under CPython (``assets/data/precomputed.json``).
 """
 
 import datetime
@@ -22,7 +22,6 @@ import re
 import shutil
 import subprocess
 import sys
-import tempfile
 
 from mkdocs.exceptions import PluginError
 from mkdocs.structure.files import File
@@ -106,30 +105,57 @@ def on_page_markdown(markdown, page, config, files, **kwargs):
     return MARKER_RE.sub(sub, markdown)
 
 
+WHEEL_NAME, WHEEL_VERSION = "couplewise_calc", "0.1.0"
+WHEEL_DATE = (2020, 1, 1, 0, 0, 0)  # fixed member dates: the same calc and data give the same bytes
+
+
 def build_wheel(bundle, out_dir):
-    """Build the pure-Python calc wheel (dataset inside) into ``out_dir``; returns its file name."""
-    with tempfile.TemporaryDirectory() as tmp:
-        shutil.copytree(os.path.join(ROOT, "calc"), os.path.join(tmp, "calc"),
-                        ignore=shutil.ignore_patterns("__pycache__", "*.pyc", "dataset.json"))
-        with open(os.path.join(tmp, "calc", "dataset.json"), "w", encoding="utf-8") as fh:
-            json.dump(bundle, fh, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
-        with open(os.path.join(tmp, "pyproject.toml"), "w", encoding="utf-8") as fh:
-            fh.write(
-                '[build-system]\nrequires = ["setuptools>=65"]\nbuild-backend = "setuptools.build_meta"\n'
-                '[project]\nname = "couplewise-calc"\nversion = "0.1.0"\nrequires-python = ">=3.11"\n'
-                '[tool.setuptools]\npackages = ["calc"]\n'
-                '[tool.setuptools.package-data]\ncalc = ["dataset.json"]\n')
-        os.makedirs(out_dir, exist_ok=True)
-        proc = subprocess.run(
-            [sys.executable, "-m", "pip", "wheel", "--no-deps", "--no-build-isolation", "--quiet",
-             "--disable-pip-version-check", "-w", out_dir, tmp],
-            capture_output=True, text=True)
-        if proc.returncode != 0:
-            raise PluginError("building the calc wheel failed:\n" + proc.stderr[-2000:])
-    wheels = [f for f in os.listdir(out_dir) if f.endswith(".whl")]
-    if len(wheels) != 1:
-        raise PluginError(f"expected one calc wheel in {out_dir}, found {wheels}")
-    return wheels[0]
+    """Write the pure-Python calc wheel (dataset inside) into ``out_dir``; returns its file name.
+
+    A pure-Python wheel is a zip with the package and a ``.dist-info`` folder (PEP 427, PEP 376
+    RECORD); it is written here directly, byte-for-byte reproducible, rather than by a
+    ``pip wheel`` subprocess (which took most of an unchanged rebuild's time; bench/).
+    """
+    import base64
+    import hashlib
+    import zipfile
+
+    members = []
+    calc_dir = os.path.join(ROOT, "calc")
+    for dirpath, dirnames, filenames in os.walk(calc_dir):
+        dirnames[:] = sorted(d for d in dirnames if d != "__pycache__")
+        for name in sorted(filenames):
+            if name.endswith(".py"):
+                path = os.path.join(dirpath, name)
+                with open(path, "rb") as fh:
+                    members.append(("calc/" + os.path.relpath(path, calc_dir).replace(os.sep, "/"), fh.read()))
+    data = json.dumps(bundle, ensure_ascii=False, separators=(",", ":"), allow_nan=False).encode("utf-8")
+    members.append(("calc/dataset.json", data))
+    info = f"{WHEEL_NAME}-{WHEEL_VERSION}.dist-info"
+    members += [
+        (f"{info}/METADATA", b"Metadata-Version: 2.1\nName: couplewise-calc\nVersion: " + WHEEL_VERSION.encode()
+         + b"\nRequires-Python: >=3.11\n"),
+        (f"{info}/WHEEL", b"Wheel-Version: 1.0\nGenerator: couplewise sitebuild\nRoot-Is-Purelib: true\n"
+         b"Tag: py3-none-any\n"),
+        (f"{info}/top_level.txt", b"calc\n"),
+    ]
+    record = []
+    for name, body in members:
+        digest = base64.urlsafe_b64encode(hashlib.sha256(body).digest()).rstrip(b"=").decode()
+        record.append(f"{name},sha256={digest},{len(body)}")
+    record.append(f"{info}/RECORD,,")
+    members.append((f"{info}/RECORD", ("\n".join(record) + "\n").encode()))
+    os.makedirs(out_dir, exist_ok=True)
+    name = f"{WHEEL_NAME}-{WHEEL_VERSION}-py3-none-any.whl"
+    tmp = os.path.join(out_dir, name + ".tmp")
+    with zipfile.ZipFile(tmp, "w", zipfile.ZIP_DEFLATED, compresslevel=9) as zf:
+        for member, body in members:
+            zi = zipfile.ZipInfo(member, date_time=WHEEL_DATE)
+            zi.compress_type = zipfile.ZIP_DEFLATED
+            zi.external_attr = 0o644 << 16
+            zf.writestr(zi, body)
+    os.replace(tmp, os.path.join(out_dir, name))
+    return name
 
 
 def stage_pyc_stdlib(rt_dir):
@@ -250,6 +276,12 @@ def on_post_build(config, **kwargs):
         write_precomputed(site, bundle)
     except PrecomputeError as exc:
         raise PluginError(str(exc)) from None
+    from sitebuild.csp import CSPError, apply_csp
+
+    try:  # every page gets the Content-Security-Policy; csp.txt holds it for a server's header
+        apply_csp(site)
+    except CSPError as exc:
+        raise PluginError(f"Content-Security-Policy: {exc}") from None
     from sitebuild.offline import write_offline_support
 
     write_offline_support(site)  # last: sw.js hashes every other file of the site

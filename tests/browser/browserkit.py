@@ -93,10 +93,16 @@ class Guard:
             route.abort()
 
 
-def new_guarded_page(browser, viewport=None, color_scheme="light"):
+def new_guarded_page(browser, viewport=None, color_scheme="light", bypass_csp=True):
+    """A page whose requests off 127.0.0.1 are aborted and recorded, with console errors recorded.
+
+    ``bypass_csp``: Playwright's ``wait_for_function`` compiles its predicate with eval, which the
+    site's Content-Security-Policy forbids, so these pages ignore the policy by default; the
+    policy itself is tested, not bypassed, in test_csp.py (and test_hostile.py checks escaping
+    with it bypassed, so an escaping fault cannot hide behind the policy)."""
     guard = Guard()
     ctx = browser.new_context(viewport=viewport or {"width": 1280, "height": 800}, color_scheme=color_scheme,
-                              service_workers="allow")
+                              service_workers="allow", bypass_csp=bypass_csp)
     ctx.route("**/*", guard.route)
     page = ctx.new_page()
     page.on("console", lambda m: guard.console_errors.append(m.text) if m.type == "error" else None)

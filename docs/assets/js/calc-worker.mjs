@@ -17,15 +17,33 @@ function message(err) {
   return String(err && err.message ? err.message : err);
 }
 
-// The snapshot is shipped gzip-compressed; inflate it in the worker. A server that labels the
-// file Content-Encoding: gzip has the browser inflate it already: then use it as it is.
+// The snapshot is shipped gzip-compressed; it is inflated in the worker as it arrives. A server
+// that labels the file Content-Encoding: gzip has the browser inflate it already: then the bytes
+// do not start with the gzip signature and are used as they are.
 async function fetchSnapshot(url) {
   const resp = await fetch(url);
   if (!resp.ok) throw new Error("snapshot: HTTP " + resp.status);
-  const bytes = new Uint8Array(await resp.arrayBuffer());
-  if (bytes[0] !== 0x1f || bytes[1] !== 0x8b) return bytes;
-  const inflated = new Blob([bytes]).stream().pipeThrough(new DecompressionStream("gzip"));
-  return new Uint8Array(await new Response(inflated).arrayBuffer());
+  const reader = resp.body.getReader();
+  let first = await reader.read();
+  while (!first.done && first.value.length < 2) { // the signature may straddle two chunks
+    const more = await reader.read();
+    if (more.done) break;
+    const joined = new Uint8Array(first.value.length + more.value.length);
+    joined.set(first.value);
+    joined.set(more.value, first.value.length);
+    first = { done: false, value: joined };
+  }
+  const body = new ReadableStream({
+    start(controller) { if (!first.done) controller.enqueue(first.value); },
+    async pull(controller) {
+      const { done, value } = await reader.read();
+      if (done) controller.close(); else controller.enqueue(value);
+    },
+    cancel(reason) { return reader.cancel(reason); },
+  });
+  const gzipped = !first.done && first.value[0] === 0x1f && first.value[1] === 0x8b;
+  const stream = gzipped ? body.pipeThrough(new DecompressionStream("gzip")) : body;
+  return new Uint8Array(await new Response(stream).arrayBuffer());
 }
 
 async function boot() {

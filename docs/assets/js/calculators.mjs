@@ -3,6 +3,8 @@
 // and sources, and on bad input shows a message next to the field and greys the last result.
 import { calculate, dataset, h, onRuntime, siteRoot } from "./couplewise.mjs";
 import { lineChart } from "./charts.mjs";
+import { FIELD_CALCULATORS } from "./field.mjs"; // site readings (circular: used only below, at CALCULATORS)
+import { SURVEY_CALCULATORS } from "./survey.mjs";
 
 const SPECIES_RE = /^(?:(\d+(?:\.\d+)?) )?(.+)\((aq|s|l|g)\)$/;
 
@@ -759,7 +761,7 @@ async function seriesChart(highlight) {
   return document.importNode(svg, true);
 }
 
-function materialOptions(ds) {
+export function materialOptions(ds) {
   const fam = new Map();
   for (const m of ds.materials) {
     const f = m.family || "other";
@@ -769,7 +771,7 @@ function materialOptions(ds) {
   return [...fam.entries()].map(([group, options]) => ({ group, options }));
 }
 
-function verdictBadge(verdict) {
+export function verdictBadge(verdict) {
   return h("span", { class: "cw-verdict cw-v-" + verdict, "data-verdict": verdict },
     h("span", { class: "cw-v-symbol", "aria-hidden": "true", text: VERDICT_SYMBOL[verdict] || "?" }), " ", verdict);
 }
@@ -857,7 +859,9 @@ async function jointCalc(root) {
 const MATRIX_DEFAULTS = { env: "seawater-quiescent", m: "zinc,aluminium-5083,carbon-steel,cast-iron,copper,cuni-90-10,nickel-aluminium-bronze,stainless-316-passive,stainless-316-active,titanium" };
 
 // Sequential, colour-blind-safe, monotonic in lightness (readable in grey): light = small ΔE.
-const HEAT = ["#f7fbff", "#d6e6f4", "#abd0e6", "#6aaed6", "#3787c0", "#105ba4", "#08306b"];
+// The shades are the classes cw-heat-0 … cw-heat-6 in couplewise.css: no style attributes, so
+// the site's Content-Security-Policy needs no 'unsafe-inline' for styles.
+const HEAT_SHADES = 7;
 
 async function matrixCalc(root) {
   const ui = frame(root, "Matrix");
@@ -900,8 +904,8 @@ async function matrixCalc(root) {
       const tr = h("tr", {}, h("th", { scope: "row", text: String(i + 1) + ". " + (names.get(id) || id) }));
       r.cells[i].forEach((c, j) => {
         if (!c || i === j) { tr.append(h("td", { class: "cw-diag", text: "—" })); return; }
-        const k = Math.min(HEAT.length - 1, Math.floor((c.delta_E_V / max) * (HEAT.length - 1) + 1e-9));
-        tr.append(h("td", { class: "cw-cell cw-v-" + c.verdict, style: "background:" + HEAT[k] + ";color:" + (k >= 4 ? "#fff" : "#000"), title: (c.anode ? "anode: " + c.anode + "; " : "") + c.verdict },
+        const k = Math.min(HEAT_SHADES - 1, Math.floor((c.delta_E_V / max) * (HEAT_SHADES - 1) + 1e-9));
+        tr.append(h("td", { class: "cw-cell cw-heat-" + k + " cw-v-" + c.verdict, title: (c.anode ? "anode: " + c.anode + "; " : "") + c.verdict },
           fmt(c.delta_E_V, 2), h("span", { class: "cw-v-symbol", "aria-label": c.verdict, text: " " + (VERDICT_SYMBOL[c.verdict] || "") })));
       });
       body.append(tr);
@@ -919,4 +923,4 @@ async function matrixCalc(root) {
   run.now(first.req, first.bad);
 }
 
-export const CALCULATORS = { couple: coupleCalc, electrode: electrodeCalc, convert: convertCalc, activity: activityCalc, joint: jointCalc, matrix: matrixCalc };
+export const CALCULATORS = { couple: coupleCalc, electrode: electrodeCalc, convert: convertCalc, activity: activityCalc, joint: jointCalc, matrix: matrixCalc, ...FIELD_CALCULATORS, ...SURVEY_CALCULATORS };

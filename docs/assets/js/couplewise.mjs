@@ -134,11 +134,10 @@ async function offerUpdate(reg) {
   if (document.querySelector(".cw-update")) return;
   const accept = h("button", { type: "button", class: "md-button md-button--primary cw-update-accept", text: "Use the new version" });
   const later = h("button", { type: "button", class: "md-button cw-update-later", text: "Later" });
-  const text = "A new version of Couplewise is ready" + (next ? ": " + describe(next) : "") + ". " +
-    (current ? "This page uses " + describe(current) + ". " : "") +
-    "Switching reloads the open pages; until then they keep their version.";
-  const bar = h("div", { class: "cw-update", role: "status", "aria-live": "polite" },
-    h("span", { class: "cw-update-text", text }), accept, later);
+  const text = "A new version of Couplewise is ready" + (next ? " (" + describe(next) + ")" : "") + ". " +
+    "The open pages keep " + (current ? describe(current) : "their version") + " until you switch; switching reloads them.";
+  const bar = h("div", { class: "cw-update md-typeset", role: "status", "aria-live": "polite" },
+    h("span", { class: "cw-update-text", text }), h("span", { class: "cw-update-actions" }, accept, later));
   accept.addEventListener("click", () => {
     accept.disabled = true;
     if (reg.waiting) reg.waiting.postMessage({ type: "activate-new-version" });
