@@ -47,6 +47,8 @@ _RANK = {t: i for i, t in enumerate(TIERS)}
 EPS_V = 1e-9
 #: area ratios outside [AREA_LOW, AREA_HIGH] get a warning [unitless]
 AREA_LOW, AREA_HIGH = 0.001, 1000.0
+#: largest area ratio accepted at all (as on the page); beyond it the screening rate overflows [unitless]
+AREA_MAX = 1.0e6
 #: number of alternatives listed per direction
 N_ALTERNATIVES = 8
 
@@ -361,8 +363,9 @@ def _material(ds, name, fieldname, basis, env):
 def _area_ratio(value, warnings):
     if value is None:
         return 1.0, False
-    allowed = "a cathode-to-anode wetted-area ratio, a finite number above 0"
-    if isinstance(value, bool) or not isinstance(value, (int, float)) or not g102.finite(value) or value <= 0:
+    allowed = f"a cathode-to-anode wetted-area ratio, a finite number above 0 and at most {AREA_MAX:g}"
+    if (isinstance(value, bool) or not isinstance(value, (int, float)) or not g102.finite(value) or value <= 0
+            or value > AREA_MAX):
         raise InputError("area_ratio", value, allowed)
     value = float(value)
     if value > AREA_HIGH or value < AREA_LOW:

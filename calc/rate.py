@@ -28,6 +28,9 @@ K2_G_M2_D = 8.954e-3
 MIN_WT_PCT = 1.0
 #: current densities above this are far beyond any oxygen-limited cathode in water: warn [µA/cm²]
 HIGH_CURRENT_UA_CM2 = 10000.0
+#: highest current density accepted at all, 1 A/cm² (the bound the data validator uses; common
+#: practice); far above it the rates overflow a double [µA/cm²]
+CURRENT_MAX_UA_CM2 = 1.0e6
 
 #: Standard atomic weights [g/mol]: IUPAC/CIAAW abridged values to five significant figures
 #: (T. Prohaska et al., "Standard atomic weights of the elements 2021 (IUPAC Technical Report)",
@@ -397,7 +400,10 @@ def rate_entry(request):
     if "current_density_uA_per_cm2" not in request:
         raise InputError("current_density_uA_per_cm2", None, "a current density of 0 or more in µA/cm²")
     i = _number("current_density_uA_per_cm2", request["current_density_uA_per_cm2"],
-                "a current density of 0 or more in µA/cm²", low=0.0)
+                f"a current density from 0 to {CURRENT_MAX_UA_CM2:g} µA/cm²", low=0.0)
+    if i > CURRENT_MAX_UA_CM2:
+        raise InputError("current_density_uA_per_cm2", i, f"a current density from 0 to {CURRENT_MAX_UA_CM2:g} µA/cm²",
+                         "1 A/cm²: no corrosion cell in water comes near it")
     ds = current()
     rec = ds.get("materials", request["material"], field="material")
     fd = material_faraday_data(rec)

@@ -207,12 +207,12 @@ FIELDS = {
                   "env": ident(ENV_IDS), "model": MODEL, "temp_C": CONDITIONS["temp_C"],
                   "size_angstrom": number(1, 15, [3, 9]), "molality": number(5e-324, 50, [1e-12, 1])}),
     "joint": ({"a": ident(MATERIAL_IDS), "b": ident(MATERIAL_IDS), "env": ident(ENV_IDS)},
-              {"area_ratio": number(5e-324, 1e300, [1e-3, 1, 1000, 1e6])}),
+              {"area_ratio": number(5e-324, 1e6, [1e-3, 1, 1000, 1000.5])}),
     "matrix": ({"env": ident(ENV_IDS)},
                {"materials": F(st.lists(ident(MATERIAL_IDS).good, min_size=1, max_size=8),
                                st.one_of(st.just([]), st.lists(ident(MATERIAL_IDS).any, min_size=1, max_size=4),
                                          JUNK))}),
-    "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e300, [1e4, 1e4 + 1])}, {}),
+    "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e6, [1e4, 1e4 + 1])}, {}),
     "measured": ({"a_name": LABEL, "a_reading_V": number(-2.5, 1.5, [-0.85, -0.7]), "b_name": LABEL,
                   "b_reading_V": number(-2.5, 1.5, [-0.2, 0]), "electrode": ident(REF_IDS), "env": ident(ENV_IDS)},
                  {"temp_C": CONDITIONS["temp_C"], "salinity": number(1e-3, 45, [2, 35]),
@@ -290,8 +290,9 @@ def check_api(name, req, label="api"):
         assert isinstance(field, str) and field.strip(), err
         assert isinstance(msg, str) and msg.strip(), err
         assert "\n" not in msg and "\r" not in msg, f"the error is not one line: {msg!r}"
-        # the message names the field it is about
+        # the message names the input field it is about (never only a result that overflowed)
         assert msg.startswith(field) or field == "dataset", err
+        assert not field.startswith("result"), err
         assert len(msg) <= 2000, f"error message of {len(msg)} characters"
     _count(f"{label} {name}", not out["ok"])
     return out
@@ -796,3 +797,25 @@ def test_makefile_site_target_uses_the_atomic_build():
         text = fh.read()
     recipe = re.search(r"^site:.*\n((?:\t.*\n)+)", text, re.M)
     assert recipe and "-m sitebuild.atomic site" in recipe.group(1), "make site must build through sitebuild/atomic.py"
+
+
+def test_limits_of_area_ratio_and_current_density():
+    """The largest area ratio and current density accepted give finite rates with a warning; just
+    beyond, the error names the input field (not a rate that overflowed)."""
+    from calc.joint import AREA_MAX
+    from calc.rate import CURRENT_MAX_UA_CM2
+
+    res = ok("joint", {"a": "zinc", "b": "copper", "env": "seawater-flowing", "area_ratio": AREA_MAX})
+    assert "outside 0.001-1000" in warning_text(res, "area_ratio")
+    assert all(math.isfinite(x) for x in res["rate_mm_per_year"])
+    res = ok("rate", {"material": "zinc", "current_density_uA_per_cm2": CURRENT_MAX_UA_CM2})
+    assert "check the units" in warning_text(res, "current_density_uA_per_cm2")
+    for name, req, field in (
+            ("joint", {"a": "zinc", "b": "copper", "env": "seawater-flowing", "area_ratio": AREA_MAX * 1.0001},
+             "area_ratio"),
+            ("joint", {"a": "zinc", "b": "copper", "env": "seawater-flowing", "area_ratio": 1e306}, "area_ratio"),
+            ("rate", {"material": "zinc", "current_density_uA_per_cm2": CURRENT_MAX_UA_CM2 * 1.0001},
+             "current_density_uA_per_cm2"),
+            ("rate", {"material": "zinc", "current_density_uA_per_cm2": 1e308}, "current_density_uA_per_cm2")):
+        out = check_api(name, req, "extreme")
+        assert not out["ok"] and out["error"]["field"] == field, out
