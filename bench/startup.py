@@ -61,6 +61,7 @@ def _visit(ctx, url, timeout_ms=120_000):
         if w.url.endswith("calc-worker.mjs"):
             start = w.evaluate("self.cwStart || null")
             rec["path"] = start and start.get("path")
+            rec["worker"] = (start or {}).get("timings") or {}
     return page, rec
 
 
@@ -120,6 +121,14 @@ def run(server, runs=5):
              f"runtime answer {fs(r['ours_answer'])} [start: {', '.join(r['paths'])}; "
              f"service worker controlled {r['controlled']}/{runs}]")
         line(f"{visit:9s} bare: {fs(r['bare'])}")
+    for visit in VISITS:  # where the worker's time goes (ms since the worker started)
+        stages = {}
+        for smp in samples["ours"]:
+            for k, v in (smp[visit].get("worker") or {}).items():
+                stages.setdefault(k, []).append(v)
+        if stages:
+            line(f"{visit:9s} ours, worker stages (median ms since the worker started): "
+                 + ", ".join(f"{k} {median(v):.0f}" for k, v in sorted(stages.items(), key=lambda kv: median(kv[1]))))
     line("all samples (s), ours runtime answer / bare:")
     for visit in VISITS:
         o = [round(s[visit]['final'] / 1000, 2) for s in samples["ours"]]

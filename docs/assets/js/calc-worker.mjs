@@ -46,16 +46,24 @@ async function fetchSnapshot(url) {
   return new Uint8Array(await new Response(stream).arrayBuffer());
 }
 
+// Milliseconds since the worker started, per stage (read by the benchmark through self.cwStart).
+const timings = {};
+function stamp(name) { timings[name] = Math.round(performance.now()); }
+
 async function boot() {
   status("loading", "runtime description");
   const info = await (await fetch(new URL("assets/runtime.json", siteRoot))).json();
   const indexURL = new URL(info.indexURL, siteRoot).href;
   const stdLibURL = info.stdLibURL ? new URL(info.stdLibURL, siteRoot).href : null;
-  // Start the (largest) download at once, while the runtime's script loads.
+  // Start the downloads at once: the runtime's large script (loadPyodide imports it later and
+  // then finds it loaded) and the snapshot, while the runtime's small entry script loads.
+  import(new URL("pyodide.asm.mjs", indexURL).href).catch(() => {}); // a failure shows in loadPyodide
   const snapshot = info.snapshot && stdLibURL ? fetchSnapshot(new URL(info.snapshot, siteRoot).href) : null;
-  if (snapshot) snapshot.catch(() => {}); // a failure is handled below, where it is awaited
+  if (snapshot) snapshot.then(() => stamp("snapshot inflated"), () => {}); // failures: handled below
+  stamp("runtime.json");
   status("loading", "Python runtime");
   const { loadPyodide } = await import(new URL("pyodide.mjs", indexURL).href);
+  stamp("pyodide.mjs");
   const quiet = { indexURL, stdout: () => {}, stderr: () => {} };
   const failures = [];
   let pyodide = null;
@@ -65,6 +73,7 @@ async function boot() {
   if (snapshot) {
     try {
       pyodide = await loadPyodide({ ...quiet, stdLibURL, _loadSnapshot: snapshot });
+      stamp("python started");
       api = pyodide.pyimport("calc.api");
       const version = pyodide.runPython("import calc.dataset; calc.dataset.current().version");
       if (version !== info.data_version) throw new Error("snapshot holds data version " + version + ", the site " + info.data_version);
@@ -79,6 +88,7 @@ async function boot() {
     try {
       if (name === "stock" && failures.length) status("loading", "Python runtime (plain standard library)");
       pyodide = await loadPyodide({ ...quiet, ...opts });
+      stamp("python started");
       status("loading", "calculation package");
       await pyodide.loadPackage(new URL(info.wheel, siteRoot).href, { messageCallback: () => {}, errorCallback: () => {} });
       api = pyodide.pyimport("calc.api");
@@ -90,7 +100,8 @@ async function boot() {
   }
   if (!path) throw new Error(failures.join("; "));
   // For tests and the benchmark (read through the worker's global scope): which path started.
-  self.cwStart = { path, failures };
+  stamp("ready");
+  self.cwStart = { path, failures, timings };
   const callJson = api.call_json;
   status("ready", info.data_version);
   return { callJson, info };
