@@ -16,12 +16,14 @@ Wired in ``mkdocs.yml`` (``hooks: [sitebuild/hooks.py]``). What happens on a bui
 """
 
 import datetime
+import hashlib
 import json
 import os
 import re
 import shutil
 import subprocess
 import sys
+import tempfile
 
 from mkdocs.exceptions import PluginError
 from mkdocs.structure.files import File
@@ -106,55 +108,62 @@ def on_page_markdown(markdown, page, config, files, **kwargs):
 
 
 WHEEL_NAME, WHEEL_VERSION = "couplewise_calc", "0.1.0"
-WHEEL_DATE = (2020, 1, 1, 0, 0, 0)  # fixed member dates: the same calc and data give the same bytes
+#: member dates of the wheel (SOURCE_DATE_EPOCH, honoured by bdist_wheel): same calc and data, same bytes
+WHEEL_EPOCH = "1577836800"  # 2020-01-01T00:00:00Z
+WHEEL_CACHE = os.path.join(ROOT, ".cache", "wheels")
 
 
-def build_wheel(bundle, out_dir):
-    """Write the pure-Python calc wheel (dataset inside) into ``out_dir``; returns its file name.
-
-    A pure-Python wheel is a zip with the package and a ``.dist-info`` folder (PEP 427, PEP 376
-    RECORD); it is written here directly, byte-for-byte reproducible, rather than by a
-    ``pip wheel`` subprocess (which took most of an unchanged rebuild's time; bench/).
-    """
-    import base64
-    import hashlib
-    import zipfile
-
-    members = []
+def _wheel_key(data):
+    """Hash of what goes into the wheel: calc's sources, the dataset bytes, this recipe [hex]."""
+    h = hashlib.sha256(b"couplewise-calc-wheel 2\0" + WHEEL_VERSION.encode() + b"\0" + data)
     calc_dir = os.path.join(ROOT, "calc")
     for dirpath, dirnames, filenames in os.walk(calc_dir):
         dirnames[:] = sorted(d for d in dirnames if d != "__pycache__")
-        for name in sorted(filenames):
-            if name.endswith(".py"):
-                path = os.path.join(dirpath, name)
-                with open(path, "rb") as fh:
-                    members.append(("calc/" + os.path.relpath(path, calc_dir).replace(os.sep, "/"), fh.read()))
+        for name in sorted(f for f in filenames if f.endswith(".py")):
+            path = os.path.join(dirpath, name)
+            with open(path, "rb") as fh:
+                h.update(os.path.relpath(path, calc_dir).encode() + b"\0" + fh.read())
+    return h.hexdigest()[:24]
+
+
+def build_wheel(bundle, out_dir):
+    """Build the pure-Python calc wheel (dataset inside) into ``out_dir``; returns its file name.
+
+    Built with ``pip wheel --no-deps`` from a temporary project holding calc and the dataset,
+    with fixed member dates (reproducible); the result is cached under ``.cache/wheels`` by a hash
+    of calc's sources and the dataset, so an unchanged rebuild copies it instead of running pip
+    (which took most of an unchanged rebuild's time; see docs/performance.md).
+    """
     data = json.dumps(bundle, ensure_ascii=False, separators=(",", ":"), allow_nan=False).encode("utf-8")
-    members.append(("calc/dataset.json", data))
-    info = f"{WHEEL_NAME}-{WHEEL_VERSION}.dist-info"
-    members += [
-        (f"{info}/METADATA", b"Metadata-Version: 2.1\nName: couplewise-calc\nVersion: " + WHEEL_VERSION.encode()
-         + b"\nRequires-Python: >=3.11\n"),
-        (f"{info}/WHEEL", b"Wheel-Version: 1.0\nGenerator: couplewise sitebuild\nRoot-Is-Purelib: true\n"
-         b"Tag: py3-none-any\n"),
-        (f"{info}/top_level.txt", b"calc\n"),
-    ]
-    record = []
-    for name, body in members:
-        digest = base64.urlsafe_b64encode(hashlib.sha256(body).digest()).rstrip(b"=").decode()
-        record.append(f"{name},sha256={digest},{len(body)}")
-    record.append(f"{info}/RECORD,,")
-    members.append((f"{info}/RECORD", ("\n".join(record) + "\n").encode()))
-    os.makedirs(out_dir, exist_ok=True)
     name = f"{WHEEL_NAME}-{WHEEL_VERSION}-py3-none-any.whl"
-    tmp = os.path.join(out_dir, name + ".tmp")
-    with zipfile.ZipFile(tmp, "w", zipfile.ZIP_DEFLATED, compresslevel=9) as zf:
-        for member, body in members:
-            zi = zipfile.ZipInfo(member, date_time=WHEEL_DATE)
-            zi.compress_type = zipfile.ZIP_DEFLATED
-            zi.external_attr = 0o644 << 16
-            zf.writestr(zi, body)
-    os.replace(tmp, os.path.join(out_dir, name))
+    cached = os.path.join(WHEEL_CACHE, _wheel_key(data), name)
+    if not os.path.isfile(cached):
+        with tempfile.TemporaryDirectory() as tmp:
+            proj, dist = os.path.join(tmp, "project"), os.path.join(tmp, "dist")
+            shutil.copytree(os.path.join(ROOT, "calc"), os.path.join(proj, "calc"),
+                            ignore=shutil.ignore_patterns("__pycache__", "*.pyc", "dataset.json"))
+            with open(os.path.join(proj, "calc", "dataset.json"), "wb") as fh:
+                fh.write(data)
+            with open(os.path.join(proj, "pyproject.toml"), "w", encoding="utf-8") as fh:
+                fh.write(
+                    '[build-system]\nrequires = ["setuptools>=65"]\nbuild-backend = "setuptools.build_meta"\n'
+                    f'[project]\nname = "couplewise-calc"\nversion = "{WHEEL_VERSION}"\nrequires-python = ">=3.11"\n'
+                    '[tool.setuptools]\npackages = ["calc"]\n'
+                    '[tool.setuptools.package-data]\ncalc = ["dataset.json"]\n')
+            proc = subprocess.run(
+                [sys.executable, "-m", "pip", "wheel", "--no-deps", "--no-build-isolation", "--quiet",
+                 "--disable-pip-version-check", "-w", dist, proj],
+                capture_output=True, text=True, env=dict(os.environ, SOURCE_DATE_EPOCH=WHEEL_EPOCH))
+            if proc.returncode != 0:
+                raise PluginError("building the calc wheel failed:\n" + proc.stderr[-2000:])
+            wheels = sorted(f for f in os.listdir(dist) if f.endswith(".whl"))
+            if wheels != [name]:
+                raise PluginError(f"pip wheel made {wheels}, expected [{name}]")
+            os.makedirs(os.path.dirname(cached), exist_ok=True)
+            shutil.copyfile(os.path.join(dist, name), cached + ".tmp")
+            os.replace(cached + ".tmp", cached)
+    os.makedirs(out_dir, exist_ok=True)
+    shutil.copyfile(cached, os.path.join(out_dir, name))
     return name
 
 

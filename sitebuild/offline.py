@@ -127,8 +127,65 @@ def write_service_worker(site_dir):
     return version, len(files), size
 
 
+def _search_languages(site_dir):
+    """The languages the site's search is configured for (mkdocs-material writes them into the
+    index); None when the site has no search index."""
+    index = os.path.join(site_dir, "search", "search_index.json")
+    if not os.path.isfile(index):
+        return None
+    with open(index, encoding="utf-8") as fh:
+        return list(json.load(fh).get("config", {}).get("lang") or ["en"])
+
+
+def unused_theme_files(site_dir):
+    """Theme files mkdocs-material copies into every build that this site never loads.
+
+    * source maps (``*.map``): read only by a browser's developer tools;
+    * the search's language support under ``assets/javascripts/lunr/``: the search worker loads
+      ``min/lunr.<lang>.min.js`` for each configured language other than English, the stemmer
+      support and ``lunr.multi`` when any is loaded or several are configured, ``tinyseg.js`` for
+      Japanese and ``wordcut.js`` for Hindi and Thai. Files needed by the configured languages
+      are kept.
+
+    Returns relative paths, sorted.
+    """
+    langs = _search_languages(site_dir) or ["en"]
+    keep = {f"assets/javascripts/lunr/min/lunr.{lang}.min.js" for lang in langs if lang != "en"}
+    if keep or len(langs) > 1:
+        keep |= {"assets/javascripts/lunr/min/lunr.stemmer.support.min.js",
+                 "assets/javascripts/lunr/min/lunr.multi.min.js"}
+    if "ja" in langs:
+        keep.add("assets/javascripts/lunr/tinyseg.js")
+    if {"hi", "th"} & set(langs):
+        keep.add("assets/javascripts/lunr/wordcut.js")
+    out = []
+    for rel in site_files(site_dir):
+        theme = rel.startswith("assets/javascripts/") or rel.startswith("assets/stylesheets/")
+        if theme and (rel.endswith(".map") or rel.startswith("assets/javascripts/lunr/")) and rel not in keep:
+            out.append(rel)
+    return out
+
+
+def prune_unused_theme_files(site_dir):
+    """Remove :func:`unused_theme_files` from the built site: they would otherwise be downloaded
+    by every visitor's service worker for offline use. Returns (count, bytes) removed."""
+    removed, size = 0, 0
+    for rel in unused_theme_files(site_dir):
+        path = os.path.join(site_dir, rel)
+        size += os.path.getsize(path)
+        os.remove(path)
+        removed += 1
+    lunr = os.path.join(site_dir, "assets", "javascripts", "lunr")
+    for dirpath, _, _ in sorted(os.walk(lunr), reverse=True):  # empty folders left behind
+        if os.path.isdir(dirpath) and not os.listdir(dirpath):
+            os.rmdir(dirpath)
+    return removed, size
+
+
 def write_offline_support(site_dir):
     """Everything offline for a built site; the service worker last (it hashes every other file)."""
+    removed, size = prune_unused_theme_files(site_dir)
+    log.info("offline: removed %d theme files the site never loads (%.2f MB)", removed, size / 1e6)
     write_search_index_script(site_dir)
     version, count, size = write_service_worker(site_dir)
     log.info("offline: sw.js precaches %d files, %.1f MB, version %s", count, size / 1e6, version)

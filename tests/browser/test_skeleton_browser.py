@@ -19,6 +19,16 @@ def test_site_build_contains_runtime_and_wheel(built_site):
     assert os.path.isfile(os.path.join(built_site, "reference", "series", "index.html"))
 
 
+def test_site_ships_nothing_it_never_loads(built_site):
+    files = [os.path.relpath(os.path.join(d, f), built_site) for d, _, fs in os.walk(built_site) for f in fs]
+    assert not [f for f in files if f.endswith(".map")], "source maps are for developer tools only"
+    assert not [f for f in files if "lunr" in f], "this English-only site's search loads no language files"
+    assert not [f for f in files if "screens" in f], "the README's screenshots are not part of the site"
+    # ...while the search itself is there (its worker and index)
+    assert [f for f in files if f.startswith(os.path.join("assets", "javascripts", "workers", "search."))]
+    assert os.path.isfile(os.path.join(built_site, "search", "search_index.json"))
+
+
 def test_served_mime_types(served):
     import urllib.request
 
