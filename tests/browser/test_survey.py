@@ -145,6 +145,45 @@ def test_bad_input_is_never_saved(browser, served, tmp_path):
     check(guard)
 
 
+#: the classes of bad input typed into every number field of the calculators (test_bad_input.py)
+NEVER = ["abc", "NaN", "Infinity", "-Infinity", "1e999", "１２", "٣", "½", "<b>1</b>", "1..2", "12 abc", "🧪"]
+#: the survey's number fields with a good value each; salinity shows with the seawater electrode
+SWEEP = [("cw-s-v", "-0.912"), ("cw-s-t", "15"), ("cw-s-p", "120"), ("cw-s-s", "20")]
+
+
+def test_every_kind_of_junk_in_every_number_field_is_refused_at_the_field(browser, served, tmp_path):
+    ctx, page, guard = launch(browser, tmp_path / "profile-sweep")
+    try:
+        open_log(page, served.url(SURVEY))
+        tried = 0
+        for fid, _ in SWEEP:
+            for value in NEVER:
+                # a good reading in every field (Ag/AgCl seawater electrode: salinity shows), then junk in one
+                page.select_option("#cw-s-st", "carbon-steel")
+                page.select_option("#cw-s-set", "seawater-aerobic")
+                page.select_option("#cw-s-el", "Ag/AgCl seawater")
+                page.select_option("#cw-s-k", "instant-off")
+                page.fill("#cw-s-loc", "TP 3")
+                for other, good in SWEEP:
+                    page.fill(f"#{other}", good)
+                page.fill(f"#{fid}", value)
+                page.click("button.cw-add")
+                expect(page.locator(f"#{fid}-msg")).not_to_have_text("", timeout=10_000)
+                text = page.locator(f"#{fid}-msg").inner_text()
+                assert "\n" not in text.strip() and len(text) < 300, (fid, value, text)
+                assert page.locator(f"#{fid}").get_attribute("aria-invalid") == "true", (fid, value)
+                assert page.locator(f"#{fid}").evaluate("(e) => e.closest('.cw-field').contains("
+                                                        "document.getElementById(e.id + '-msg'))"), (fid, value)
+                expect(page.locator(".cw-form-msg")).to_contain_text("Not saved")
+                tried += 1
+        assert tried == len(SWEEP) * len(NEVER)
+        expect(page.locator(".cw-log-count")).to_have_text("No readings yet.")
+        assert guard.console_errors == [], guard.console_errors
+    finally:
+        ctx.close()
+    check(guard)
+
+
 def test_readings_survive_reload_restart_and_offline_and_move_by_export(browser, own_server, built_site, tmp_path):
     profile = tmp_path / "profile"
     url = own_server.url(SURVEY)
