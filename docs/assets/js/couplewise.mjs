@@ -179,7 +179,30 @@ function registerServiceWorker() {
   }).catch(() => { /* offline use is unavailable (e.g. private mode); the site still works online */ });
 }
 
-registerServiceWorker();
+// On a first visit the service worker's install downloads and checks every file of the site
+// (about 27 MB) for offline use; begun at once, it competes with the Python runtime's start for
+// the network and the two or four cores of a tablet. It is therefore registered once the runtime
+// is ready (or has failed), or after 20 s at most. A page already served by the worker registers
+// at once: that only asks the server whether there is a newer version.
+function registerWhenRuntimeSettles() {
+  if (!servedOverHttp() || !("serviceWorker" in navigator)) return;
+  if (navigator.serviceWorker.controller || !startWorker()) { registerServiceWorker(); return; }
+  let done = false;
+  let off = null;
+  let timer = null;
+  const go = () => {
+    if (done) return;
+    done = true;
+    if (off) off();
+    clearTimeout(timer);
+    registerServiceWorker();
+  };
+  timer = setTimeout(go, 20000);
+  off = onRuntime((r) => { if (r.stage === "ready" || r.stage === "failed") go(); });
+  if (done) off();
+}
+
+registerWhenRuntimeSettles();
 
 if (window.document$ && typeof window.document$.subscribe === "function") {
   window.document$.subscribe(() => initPage());
