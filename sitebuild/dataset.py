@@ -10,7 +10,8 @@ import json
 import os
 
 HERE = os.path.dirname(os.path.abspath(__file__))
-PROJECT_DATA = os.path.join(os.path.dirname(HERE), "data")
+PROJECT_ROOT = os.path.dirname(HERE)
+PROJECT_DATA = os.path.join(PROJECT_ROOT, "data")
 
 #: file name -> top-level key
 FILES = {
@@ -83,18 +84,48 @@ def load_bundle(data_dir):
 
 CACHE_DIR = os.path.join(os.path.dirname(HERE), ".cache")
 
+#: the code that reads, checks and bundles the data (project-relative paths): a cached bundle is
+#: valid only for the code that made it, so these files' bytes are part of the cache key
+BUNDLER_SOURCES = (
+    "sitebuild/dataset.py",
+    "sitebuild/validate.py",
+    "sitebuild/yamlsafe.py",
+    "calc/species.py",      # species parsing and balance (validate)
+    "calc/constants.py",    # Nernst slope, Faraday (validate)
+    "calc/errors.py",
+    "calc/dataset.py",      # the lookup key duplicates are compared by (validate)
+    "calc/fieldcheck.py",   # the structures and settings CP criteria may name (validate)
+)
+
 
 def _files_digest(data_dir):
+    """Cache key of a data folder's bundle: data and schema bytes, and the bundling code's bytes."""
     h = hashlib.sha256()
+    for rel in BUNDLER_SOURCES:
+        h.update(b"code\0" + rel.encode() + b"\0")
+        try:
+            with open(os.path.join(PROJECT_ROOT, rel), "rb") as fh:
+                h.update(hashlib.sha256(fh.read()).digest())
+        except OSError:
+            h.update(b"missing")
     for fname in sorted(FILES):
         path = os.path.join(data_dir, fname)
         h.update(fname.encode() + b"\0")
         if os.path.exists(path):
             with open(path, "rb") as fh:
                 h.update(hashlib.sha256(fh.read()).digest())
-    for name in sorted(os.listdir(os.path.join(data_dir, "schema"))) if os.path.isdir(os.path.join(data_dir, "schema")) else []:
-        with open(os.path.join(data_dir, "schema", name), "rb") as fh:
-            h.update(name.encode() + hashlib.sha256(fh.read()).digest())
+    # the schemas the validator uses: the folder's own schema/, else the project's (as
+    # sitebuild.validate._schema_path looks them up)
+    schema_dirs = [os.path.join(data_dir, "schema"), os.path.join(PROJECT_DATA, "schema")]
+    seen = set()
+    for sdir in schema_dirs:
+        names = sorted(os.listdir(sdir)) if os.path.isdir(sdir) else []
+        for name in names:
+            if name in seen:
+                continue
+            seen.add(name)
+            with open(os.path.join(sdir, name), "rb") as fh:
+                h.update(name.encode() + hashlib.sha256(fh.read()).digest())
     return h.hexdigest()[:20]
 
 
@@ -102,8 +133,9 @@ def load_project_bundle(data_dir=None, use_cache=True):
     """The validated bundle of the project's own data/ (or another folder).
 
     A bundle that passed validation is cached in .cache/ under a hash of the data and schema
-    files' bytes, so the command line starts fast; any edit to the data makes a new hash and a
-    full validation.
+    files' bytes and of the code that validates and bundles them (``BUNDLER_SOURCES``), so the
+    command line starts fast; any edit to the data or to that code makes a new hash and a full
+    validation.
     """
     data_dir = data_dir or PROJECT_DATA
     cache = os.path.join(CACHE_DIR, f"dataset-{_files_digest(data_dir)}.json") if use_cache else None

@@ -11,8 +11,10 @@ them as generated files, so they are never committed. Rules the pages keep:
 - titles carry names, UNS numbers and couple ids so the built-in search finds them.
 """
 
+import functools
 import html
 import json
+import posixpath
 import re
 
 from calc.errors import InputError
@@ -37,6 +39,9 @@ LEGEND = (f"{RECALLED} value recalled from the cited source, not re-read: check 
 # characters that mean something to Markdown or its extensions (tables, attr_list, emoji,
 # mark, caret, tilde, arithmatex) or to HTML: written as character references
 _ESCAPE = {c: f"&#{ord(c)};" for c in "\\`*_{}[]#|~^=:$<>\"'&"}
+_ESCAPE_TABLE = str.maketrans(_ESCAPE)
+_CONTROL_RE = re.compile(r"[\x00-\x08\x0b\x0c\x0e-\x1f\x7f]")
+_SPACE_RE = re.compile(r"\s+")
 
 
 def esc(text):
@@ -55,11 +60,9 @@ def esc(text):
     """
     if text is None:
         return ""
-    text = str(text)
-    text = re.sub(r"[\x00-\x08\x0b\x0c\x0e-\x1f\x7f]", "\ufffd", text)
-    text = re.sub(r"\s+", " ", text).strip()
-    out = "".join(_ESCAPE.get(c, c) for c in text)
-    return out.replace("--", "-&#45;")
+    text = _CONTROL_RE.sub("\ufffd", str(text))
+    text = _SPACE_RE.sub(" ", text).strip()
+    return text.translate(_ESCAPE_TABLE).replace("--", "-&#45;")
 
 
 def _attr(text):
@@ -783,11 +786,13 @@ def model_text(model):
     return esc(kind)
 
 
-def generate_pages(bundle):
+def generate_pages(bundle, raw_html=True):
     """Every generated reference page of a dataset bundle.
 
     Args:
         bundle: the validated dataset bundle (see ``sitebuild.dataset.load_bundle``) [unitless]
+        raw_html: write tables, lists and "Cited for" lines as raw HTML blocks (what the site
+            uses, see :func:`html_blocks`); False gives the plain Markdown they are made from [unitless]
 
     Returns:
         dict doc path (relative to ``docs/``) -> Markdown text
@@ -805,7 +810,123 @@ def generate_pages(bundle):
     pages["reference/galvanic-series.md"] = p.galvanic_series()
     pages["reference/cp-criteria.md"] = p.cp_criteria()
     pages["reference/sources.md"] = p.sources_page()  # last: it lists what every other page cited
+    if raw_html:
+        pages = {path: html_blocks(text, path) for path, text in pages.items()}
     return {path: _with_title(text) for path, text in pages.items()}
+
+
+# --- the long parts of a page as HTML blocks ---------------------------------------------------------
+# The pages are written as Markdown (above); their tables, lists and "Cited for" lines are then
+# written out as the HTML Python-Markdown would make of them, as raw HTML blocks: Python-Markdown
+# passes a raw block through untouched instead of running its inline patterns over every cell,
+# which made the generated pages the costliest part of the build. Headings, the legend and
+# other prose stay Markdown (the table of contents and the permalinks are made from them).
+# mkdocs does not rewrite links inside raw HTML, so their targets are written as the URLs of the
+# built site here (``use_directory_urls: true``, as in mkdocs.yml).
+_TABLE_RULE_RE = re.compile(r"^\|(?:-+\|)+$")
+_CODE_RE = re.compile(r"`([^`]+)`")
+_STRONG_RE = re.compile(r"\*\*(.+?)\*\*")
+_LINK_RE = re.compile(r"\[([^\]]*)\]\(([^)\s]+)\)")
+_HOLD_RE = re.compile("\x02(\\d+)\x03")
+
+
+def page_url(doc):
+    """The URL (relative to the site root) of a doc path with ``use_directory_urls``.
+
+    >>> page_url("reference/materials/index.md"), page_url("reference/series.md"), page_url("a/b.svg")
+    ('reference/materials/', 'reference/series/', 'a/b.svg')
+    """
+    if not doc.endswith(".md"):
+        return doc
+    stem = doc[:-3]
+    if stem == "index" or stem.endswith("/index"):
+        return stem[:-5]
+    return stem + "/"
+
+
+@functools.lru_cache(maxsize=65536)
+def href(link, doc):
+    """A Markdown link target written on the page ``doc`` (a relative ``.md`` path, maybe with an
+    anchor) as the relative URL mkdocs would write for it.
+
+    >>> href("../sources.md#src-x", "reference/materials/zinc.md")
+    '../../sources/#src-x'
+    >>> href("materials/index.md", "reference/series.md"), href("#hr-x", "reference/series.md")
+    ('../materials/', '#hr-x')
+    """
+    if link.startswith("#") or re.match(r"^[a-z][a-z0-9+.-]*:", link):
+        return link
+    target, hash_, anchor = link.partition("#")
+    resolved = posixpath.normpath(posixpath.join(posixpath.dirname(doc), target))
+    url = page_url(resolved)
+    here = page_url(doc)
+    base = here if here.endswith("/") else posixpath.dirname(here) + "/"
+    rel = posixpath.relpath(url or ".", base.rstrip("/") or ".")
+    if url.endswith("/") or not url:
+        rel = "./" if rel == "." else rel + "/"
+    return rel + hash_ + anchor
+
+
+def inline_html(text, doc):
+    """The Markdown of one table cell or list item, as written by this module, as HTML.
+
+    Only the constructs this module writes occur outside data text (data text is escaped by
+    :func:`esc` and holds no Markdown or HTML): code spans, ``**strong**``, links, inline HTML.
+    """
+    if "`" not in text and "*" not in text and "](" not in text:
+        return text  # nothing but escaped text and inline HTML
+    held = []
+
+    def hold(fragment):
+        held.append(fragment)
+        return f"\x02{len(held) - 1}\x03"
+
+    text = _CODE_RE.sub(lambda m: hold("<code>" + html.escape(m.group(1).strip(), quote=False) + "</code>"), text)
+    text = _STRONG_RE.sub(r"<strong>\1</strong>", text)
+    text = _LINK_RE.sub(lambda m: f'<a href="{_attr(href(m.group(2), doc))}">{m.group(1)}</a>', text)
+    return _HOLD_RE.sub(lambda m: held[int(m.group(1))], text)
+
+
+def _cells(row):
+    return [c.strip() for c in row.strip()[1:-1].split("|")]
+
+
+def html_blocks(markdown_text, doc):
+    """A generated page with its tables, bullet lists and "Cited for" lines as raw HTML blocks."""
+    lines = markdown_text.split("\n")
+    out, i = [], 0
+    while i < len(lines):
+        line = lines[i]
+        if line.startswith("|") and i + 1 < len(lines) and _TABLE_RULE_RE.match(lines[i + 1]):
+            block = ["<table>", "<thead>", "<tr>"]
+            block += [f"<th>{inline_html(c, doc)}</th>" for c in _cells(line)]
+            block += ["</tr>", "</thead>", "<tbody>"]
+            i += 2
+            while i < len(lines) and lines[i].startswith("|"):
+                block.append("<tr>")
+                block += [f"<td>{inline_html(c, doc)}</td>" for c in _cells(lines[i])]
+                block.append("</tr>")
+                i += 1
+            block += ["</tbody>", "</table>"]
+        elif line.startswith("- "):
+            block = ["<ul>"]
+            while i < len(lines) and lines[i].startswith("- "):
+                block.append(f"<li>{inline_html(lines[i][2:], doc)}</li>")
+                i += 1
+            block.append("</ul>")
+        elif line.startswith("Cited for: ") and (i + 1 == len(lines) or not lines[i + 1].strip()):
+            block = [f"<p>{inline_html(line, doc)}</p>"]
+            i += 1
+        else:
+            out.append(line)
+            i += 1
+            continue
+        if out and out[-1].strip():
+            out.append("")
+        out += block
+        if i < len(lines) and lines[i].strip():
+            out.append("")
+    return "\n".join(out)
 
 
 def _with_title(markdown_text):

@@ -164,13 +164,17 @@ class _Collector:
 
     def __init__(self):
         self.lines = []
-        self.schema_flagged = set()  # (kind, record, field) the schema already reported
+        self.schema_flagged = {}  # (kind, record) -> fields the schema already reported
+
+    def flag(self, kind, record, field):
+        """Note that the schema reported this field."""
+        self.schema_flagged.setdefault((kind, record), set()).add(field)
 
     def flagged(self, kind, record, field):
         """True when the schema already reported this field (or a part or parent of it)."""
-        for k, rec, fld in self.schema_flagged:
-            if k == kind and rec == record and (fld == field or fld.startswith(field + "[")
-                                                or field.startswith(fld + "[") or field.startswith(fld + ".")):
+        for fld in self.schema_flagged.get((kind, record), ()):
+            if fld == field or fld.startswith(field + "[") or field.startswith(fld + "[") \
+                    or field.startswith(fld + "."):
                 return True
         return False
 
@@ -335,7 +339,7 @@ def _schema_problems(kind, records, data_dir, out):
     unique = list(dict.fromkeys(lines))
     for label, field, msg in unique[:MAX_SCHEMA_ERRORS_PER_FILE]:
         out.error(kind, label, field, f"schema: {msg}")
-        out.schema_flagged.add((kind, label, field))
+        out.flag(kind, label, field)
     lines = unique
     if len(lines) > MAX_SCHEMA_ERRORS_PER_FILE:
         out.error(kind, "-", "-", f"schema: {len(lines) - MAX_SCHEMA_ERRORS_PER_FILE} more schema problems not shown")
@@ -718,14 +722,26 @@ def _check_triple(out, a, b, c):
             out.warning(k, lc, "dEdT_mV_per_K", dtext)
 
 
+def _non_water_species(vec, water):
+    """The species of a reaction vector other than H+, OH- and H2O (electrons included)."""
+    return frozenset(key for key in vec if key not in water)
+
+
 def _acid_alkaline(raw, out):
     """Pairs whose reactions differ by ν (H+ + OH- - H2O): E°alk = E°acid - slope·pKw·ν/n."""
     k = "half_reactions"
     slope = nernst_slope(T_STANDARD)
     water = {"H+(aq)", "OH-(aq)", "H2O(l)"}
     couples = _couples(raw)
+    # Two reactions can differ by water's ions only when they hold the same other species (the
+    # electrons included): group by that set, so each reaction is compared with its group only
+    # (linear in the number of half-reactions; the groups keep the records' order, so the
+    # findings come in the same order as comparing every pair).
+    groups = {}
+    for c in couples:
+        groups.setdefault(_non_water_species(c[4], water), []).append(c)
     for la, ra, _, _, va in couples:
-        for lb, rb, _, _, vb in couples:
+        for lb, rb, _, _, vb in groups[_non_water_species(va, water)]:
             if la == lb:
                 continue
             keys = set(va) | set(vb)

@@ -60,7 +60,44 @@ def anchors_of(text):
 
 
 def links_of(text):
-    return re.findall(r"\]\(([^)\s]+)\)", body(text))
+    """Markdown link targets and the hrefs of the HTML blocks (see pages.html_blocks)."""
+    return re.findall(r"\]\(([^)\s]+)\)", body(text)) + [html.unescape(h) for h in re.findall(r'href="([^"]*)"', body(text))]
+
+
+def doc_of(link, path, out):
+    """The generated page (or file) a link on ``path`` points at: a relative .md path as written in
+    Markdown, or a URL of the built site (use_directory_urls) as written in the HTML blocks."""
+    target = link.partition("#")[0]
+    if not target:
+        return path
+    if target.endswith(".md") or "." in posixpath.basename(target):
+        return posixpath.normpath(posixpath.join(posixpath.dirname(path), target))
+    url = posixpath.normpath(posixpath.join(pages.page_url(path), target))
+    for candidate in (url + ".md", url + "/index.md"):
+        if candidate in out:
+            return candidate
+    return url
+
+
+def rows_of(text):
+    """The rows of the page's HTML tables, each as one string (cells joined)."""
+    return [re.sub(r"\n", "", r) for r in re.findall(r"<tr>\n(.*?)\n</tr>", text, re.S)]
+
+
+def cells_of(row):
+    return re.findall(r"<t[dh]>(.*?)</t[dh]>", row)
+
+
+def row_with(text, needle):
+    """The one table row that contains ``needle``."""
+    rows = [r for r in rows_of(text) if needle in r]
+    assert len(rows) == 1, (needle, rows)
+    return rows[0]
+
+
+def href_to(to, on):
+    """What a link from the page ``on`` to the doc path/anchor ``to`` (relative .md) looks like."""
+    return f'href="{pages.href(to, on)}"'
 
 
 # --- every record has its page or row ----------------------------------------------------------------
@@ -75,7 +112,7 @@ def test_page_set(bundle):
         assert pages.esc(m["name"]) in page
         for u in m.get("uns") or []:
             assert u in page.split("\n")[1]  # the title carries the UNS numbers (search finds them)
-        assert f"]({pages.material_file(m['id'])})" in out["reference/materials/index.md"]
+        assert href_to(pages.material_file(m["id"]), "reference/materials/index.md") in out["reference/materials/index.md"]
     assert len([p for p in out if p.startswith("reference/materials/")]) == len(bundle["materials"]) + 1
 
 
@@ -83,8 +120,8 @@ def test_every_record_has_a_row(bundle):
     out = pages.generate_pages(bundle)
     series = out["reference/series.md"]
     for hr in bundle["half_reactions"]:
-        row = [ln for ln in series.splitlines() if f'id="{pages.couple_anchor(hr["id"])}"' in ln]
-        assert len(row) == 1 and f"**{pages.esc(hr['id'])}**" in row[0], hr["id"]
+        row = row_with(series, f'id="{pages.couple_anchor(hr["id"])}"')
+        assert f"<strong>{pages.esc(hr['id'])}</strong>" in row, hr["id"]
     for r in bundle["reference_electrodes"]:
         assert f'id="{pages.electrode_anchor(r["id"])}"' in out["reference/electrodes.md"], r["id"]
     for e in bundle["environments"]:
@@ -94,7 +131,8 @@ def test_every_record_has_a_row(bundle):
     assert len(re.findall(r'id="ion-', out["reference/ions.md"])) == len(bundle["ions"])
     gs = out["reference/galvanic-series.md"]
     with_range = [m for m in bundle["materials"] if m.get("seawater_range_V_SCE")]
-    assert all(f"materials/{pages.material_file(m['id'])}" in gs for m in with_range)
+    assert all(href_to(f"materials/{pages.material_file(m['id'])}", "reference/galvanic-series.md") in gs
+               for m in with_range)
 
 
 def test_anchors_are_unique(bundle):
@@ -121,8 +159,8 @@ def test_every_link_resolves(bundle):
         for link in links_of(text):
             if link.startswith(("http:", "https:", "mailto:")):
                 continue
-            target, _, anchor = link.partition("#")
-            resolved = posixpath.normpath(posixpath.join(posixpath.dirname(path), target)) if target else path
+            anchor = link.partition("#")[2]
+            resolved = doc_of(link, path, out)
             assert resolved in out or resolved in extra_files, (path, link)
             if anchor:
                 assert anchor in anchors_of(out[resolved]), (path, link)
@@ -131,27 +169,29 @@ def test_every_link_resolves(bundle):
 def test_every_value_links_its_source(bundle):
     out = pages.generate_pages(bundle)
     series = out["reference/series.md"]
+    on = "reference/series.md"
     for hr in bundle["half_reactions"]:
-        row = next(ln for ln in series.splitlines() if f'id="{pages.couple_anchor(hr["id"])}"' in ln)
-        assert f"sources.md#{pages.source_anchor(hr['E0_source'])}" in row, hr["id"]
+        row = row_with(series, f'id="{pages.couple_anchor(hr["id"])}"')
+        assert href_to(f"sources.md#{pages.source_anchor(hr['E0_source'])}", on) in row, hr["id"]
         if hr.get("dEdT_mV_per_K") is not None:
-            assert f"sources.md#{pages.source_anchor(hr['dEdT_source'])}" in row, hr["id"]
+            assert href_to(f"sources.md#{pages.source_anchor(hr['dEdT_source'])}", on) in row, hr["id"]
     for m in bundle["materials"]:
         page = out[f"reference/materials/{pages.material_file(m['id'])}"]
         for prefix, label in (("seawater", "Flowing seawater range"), ("density", "Density"),
                               ("anodic_index", "Anodic index"), ("equivalent_weight", "Equivalent weight")):
             if m.get(f"{prefix}_source") is None:
                 continue
-            row = next(ln for ln in page.splitlines() if ln.startswith(f"| {label}"))
-            assert f"../sources.md#{pages.source_anchor(m[prefix + '_source'])}" in row, (m["id"], prefix)
+            row = next(r for r in rows_of(page) if r.startswith(f"<td>{label}"))
+            on = f"reference/materials/{pages.material_file(m['id'])}"
+            assert href_to(f"../sources.md#{pages.source_anchor(m[prefix + '_source'])}", on) in row, (m["id"], prefix)
     electrodes = out["reference/electrodes.md"]
     for r in bundle["reference_electrodes"]:
-        row = next(ln for ln in electrodes.splitlines() if f'id="{pages.electrode_anchor(r["id"])}"' in ln)
-        assert f"sources.md#{pages.source_anchor(r['source'])}" in row
-        assert f"sources.md#{pages.source_anchor(r['temperature']['source'])}" in row
+        row = row_with(electrodes, f'id="{pages.electrode_anchor(r["id"])}"')
+        assert href_to(f"sources.md#{pages.source_anchor(r['source'])}", "reference/electrodes.md") in row
+        assert href_to(f"sources.md#{pages.source_anchor(r['temperature']['source'])}", "reference/electrodes.md") in row
     envs = out["reference/environments.md"]
     for e in bundle["environments"]:
-        assert f"sources.md#{pages.source_anchor(e['allowable_source'])}" in envs
+        assert href_to(f"sources.md#{pages.source_anchor(e['allowable_source'])}", "reference/environments.md") in envs
 
 
 def test_sources_page_lists_what_each_source_is_cited_for():
@@ -159,19 +199,18 @@ def test_sources_page_lists_what_each_source_is_cited_for():
     src = out["reference/sources.md"]
     section = src.split("{#src-bratsch-1989}", 1)[1].split("\n## ", 1)[0]
     # the fixture cites Bratsch (1989) for E° of Fe2+/Fe only
-    assert "Cited for: [E° of Fe2+/Fe](series.md#hr-fe2p-fe)." in section
+    assert '<p>Cited for: <a href="../series/#hr-fe2p-fe">E° of Fe2+/Fe</a>.</p>' in section
 
 
 def test_recalled_values_carry_the_badge():
     out = pages.generate_pages(minimal_bundle())
     series = out["reference/series.md"]
-    row = {h: next(ln for ln in series.splitlines() if f'id="{pages.couple_anchor(h)}"' in ln)
-           for h in ("Fe2+/Fe", "Zn2+/Zn")}
+    row = {h: row_with(series, f'id="{pages.couple_anchor(h)}"') for h in ("Fe2+/Fe", "Zn2+/Zn")}
     assert pages.RECALLED in row["Fe2+/Fe"]  # E0_confidence: recalled in the fixture
     assert pages.RECALLED not in row["Zn2+/Zn"]  # E0_confidence: read
     zinc = out["reference/materials/zinc.md"]
-    seawater = next(ln for ln in zinc.splitlines() if ln.startswith("| Flowing seawater range"))
-    density = next(ln for ln in zinc.splitlines() if ln.startswith("| Density"))
+    seawater = next(r for r in rows_of(zinc) if r.startswith("<td>Flowing seawater range"))
+    density = next(r for r in rows_of(zinc) if r.startswith("<td>Density"))
     assert pages.RECALLED not in seawater and pages.RECALLED in density
     # the badge is defined once and explained on every page
     assert all(pages.RECALLED in text for text in out.values())
@@ -181,8 +220,8 @@ def test_recalled_badges_in_the_shipped_data(shipped):
     out = pages.generate_pages(shipped)
     series = out["reference/series.md"]
     for hr in shipped["half_reactions"]:
-        row = next(ln for ln in series.splitlines() if f'id="{pages.couple_anchor(hr["id"])}"' in ln)
-        e0_cell = row.split(" | ")[3]
+        row = row_with(series, f'id="{pages.couple_anchor(hr["id"])}"')
+        e0_cell = cells_of(row)[3]
         assert (pages.RECALLED in e0_cell) == (hr["E0_confidence"] == "recalled"), hr["id"]
         if hr.get("hypothetical"):
             assert pages.HYPOTHETICAL in row
