@@ -62,7 +62,7 @@ def main(dest):
             mod = orig_load(self, name, path)
             if not hooks_loaded:
                 hooks_loaded["m"] = mod
-                for attr, label in (("build_wheel", "calc wheel (written directly)"),
+                for attr, label in (("build_wheel", "calc wheel (pip wheel --no-deps, cached)"),
                                     ("stage_pyc_stdlib", "runtime: bytecode stdlib (cached)"),
                                     ("stage_snapshot", "runtime: memory snapshot (cached per wheel)")):
                     if hasattr(mod, attr):
