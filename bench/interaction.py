@@ -4,6 +4,11 @@ On a calculator page whose runtime is ready, a field is changed 50 times as a us
 native ``input`` event per change, a short pause between changes). A capture listener marks
 ``bench-input`` at the input event; the page's own ``cw-result-painted`` mark closes the
 measure. Median and p95 are printed, then the ratio p95/median (how even the response is).
+
+A page that draws a chart after its result (the couple page's E–pH chart, one more calculation)
+marks ``cw-chart-painted``; those marks are read afterwards, without changing the pace of the
+changes: for each change, the chart painted before the next change, if any, gives the time from
+the change to its chart (median, and how many changes got their chart).
 """
 
 from .common import Guard, fms, fr, heading, line, median, percentile, ratio
@@ -32,6 +37,22 @@ def measure(page, selector, values, pause_ms=100):
         out.append(page.evaluate("performance.measure('bench-latency', 'bench-input', 'cw-result-painted').duration"))
         page.wait_for_timeout(pause_ms)
     return out
+
+
+CHART_DELAYS = """(n) => {
+  const t = (name) => performance.getEntriesByName(name).map((e) => e.startTime);
+  const inputs = t("bench-input").slice(-n), charts = t("cw-chart-painted");
+  return inputs.map((t0, i) => {
+    const next = i + 1 < inputs.length ? inputs[i + 1] : Infinity;
+    const c = charts.find((x) => x > t0 && x < next);
+    return c === undefined ? null : c - t0;
+  });
+}"""
+
+
+def chart_delays(page, n):
+    """For each of the last n changes: ms from the change to its chart, or None (no chart before the next change)."""
+    return page.evaluate(CHART_DELAYS, n)
 
 
 ROUND_TRIP = """async ([name, repeats]) => {
@@ -69,16 +90,22 @@ def run(server, changes=50):
                 lat = measure(page, selector, (values * (changes // len(values) + 1))[:changes])
                 name = path.strip("/").split("/")[-1]
                 page.wait_for_timeout(1000)  # let charts drawn after the last result finish
+                charts = [c for c in chart_delays(page, len(lat)) if c is not None]
                 trip = page.evaluate(ROUND_TRIP, [name, 20])
                 ctx.close()
                 res[name] = {"median_ms": median(lat), "p95_ms": percentile(lat, 95), "max_ms": max(lat), "n": len(lat),
                              "worker_round_trip_ms": median(trip)}
+                if charts:
+                    res[name].update(chart_median_ms=median(charts), charts_drawn=len(charts))
         finally:
             br.close()
     guard.check()
     for name, r in res.items():
         line(f"{name:7s} median {fms(r['median_ms'])}, p95 {fms(r['p95_ms'])}, max {fms(r['max_ms'])} (n = {r['n']}); "
              f"the calculation alone (worker round trip, idle page): {fms(r['worker_round_trip_ms'])}")
+        if "chart_median_ms" in r:
+            line(f"{'':7s} its chart: median {fms(r['chart_median_ms'])} from the change "
+                 f"({r['charts_drawn']} of {r['n']} changes got their chart before the next change)")
     for name, r in res.items():
         r["ratio_p95_median"] = ratio(r["p95_ms"], r["median_ms"])
     line("ratio p95/median: " + ", ".join(f"{n} {fr(r['ratio_p95_median'])}" for n, r in res.items()))

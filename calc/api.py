@@ -19,6 +19,7 @@ from .errors import DataError, InputError
 ENTRY_POINTS = {
     "electrode": "calc.potentials:electrode_entry",
     "couple": "calc.potentials:couple_entry",
+    "eph": "calc.potentials:eph_entry",
     "convert": "calc.refelec:convert_entry",
     "activity": "calc.activity:activity_entry",
     "joint": "calc.joint:joint_entry",
@@ -49,6 +50,27 @@ def entry(name):
     return getattr(importlib.import_module(module), func)
 
 
+def _run(name, request):
+    """The outcome of one calculation before its numbers are checked for NaN and Infinity."""
+    try:
+        if not isinstance(request, dict):
+            raise InputError("request", type(request).__name__, "a JSON object")
+        return {"ok": True, "result": entry(name)(request)}
+    except InputError as exc:
+        return {"ok": False, "error": exc.to_dict()}
+    except DataError as exc:
+        return {"ok": False, "error": {"field": "dataset", "message": str(exc)}}
+
+
+def _refused(out):
+    """The error naming the first NaN or Infinity of a result (``out`` unchanged when none)."""
+    try:
+        _finite(out["result"])
+    except InputError as exc:
+        return {"ok": False, "error": exc.to_dict()}
+    return out
+
+
 def call(name, request):
     """Run one calculation and wrap the outcome.
 
@@ -62,20 +84,21 @@ def call(name, request):
     >>> call("nope", {})["error"]["field"]
     'calculation'
     """
-    try:
-        if not isinstance(request, dict):
-            raise InputError("request", type(request).__name__, "a JSON object")
-        result = entry(name)(request)
-        _finite(result)
-        return {"ok": True, "result": result}
-    except InputError as exc:
-        return {"ok": False, "error": exc.to_dict()}
-    except DataError as exc:
-        return {"ok": False, "error": {"field": "dataset", "message": str(exc)}}
+    out = _run(name, request)
+    return _refused(out) if out["ok"] else out
 
 
 def call_json(name, text):
-    """JSON text in, JSON text out (what the page's worker calls)."""
+    """JSON text in, JSON text out (what the page's worker calls).
+
+    The same outcome as :func:`call`, written as JSON. The result is not walked for NaN and
+    Infinity beforehand: ``json.dumps(allow_nan=False)`` refuses them while writing, and only
+    then is the result walked to name the field that holds one (a large result, such as the
+    matrix of every material, is written once instead of walked and then written).
+
+    >>> call_json("electrode", '{"id": "Cu2+/Cu", "temp_C": "hot"}')[:36]
+    '{"ok": false, "error": {"field": "te'
+    """
     try:
         request = json.loads(text)
     except (TypeError, ValueError) as exc:
@@ -83,4 +106,12 @@ def call_json(name, text):
     except RecursionError:
         return json.dumps({"ok": False, "error": {"field": "request",
                                                   "message": "request is nested too deeply: expected a flat JSON object"}})
-    return json.dumps(call(name, request), allow_nan=False, ensure_ascii=False)
+    out = _run(name, request)
+    try:
+        return json.dumps(out, allow_nan=False, ensure_ascii=False)
+    except ValueError:  # NaN or Infinity somewhere in the result
+        refused = _refused(out)
+        if refused is out:  # not a number after all: never let an unwritable result pass
+            refused = {"ok": False, "error": {"field": "result",
+                                              "message": "result: the result could not be written as JSON"}}
+        return json.dumps(refused, allow_nan=False, ensure_ascii=False)

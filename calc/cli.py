@@ -22,6 +22,7 @@ HEADLINE = {
     "joint": ["anode", "cathode", "basis", "delta_E_V", "delta_E_range_V", "allowable_V", "verdict",
               "verdict_text", "rate_mm_per_year"],
     "matrix": ["env", "materials"],
+    "eph": ["temp_C"],
     "rate": ["material", "penetration_mm_per_year", "mass_loss_g_per_m2_day"],
     "measured": ["anode", "cathode", "delta_E_V", "allowable_V", "verdict", "verdict_text", "a_V_SCE", "b_V_SCE",
                  "agreement_text"],
@@ -37,6 +38,10 @@ def _one_line(message, word_max=60):
 
 
 class _Parser(argparse.ArgumentParser):
+    def __init__(self, *args, **kwargs):
+        kwargs.setdefault("allow_abbrev", False)  # "--pH" must not pass for "--pH-values"
+        super().__init__(*args, **kwargs)
+
     def error(self, message):  # one line, exit 2, no usage dump
         message = _one_line(message)  # arguments are echoed in it: keep it one short line
         sys.stderr.write(f"couplewise: {message} (see 'couplewise {self.prog.split()[-1]} --help')\n"
@@ -60,7 +65,7 @@ def _pairs(values, field, number=True):
     return out
 
 
-def _conditions(p):
+def _conditions(p, with_pH=True):
     p.add_argument("--temp", type=float, default=None, metavar="C", help="temperature [°C], default 25")
     p.add_argument("--activity", action="append", metavar="SP=A", help="activity of a species [unitless]")
     p.add_argument("--molality", action="append", metavar="SP=M", help="molality of a species [mol/kg]")
@@ -68,7 +73,10 @@ def _conditions(p):
     g.add_argument("--ionic-strength", type=float, metavar="I", help="ionic strength [mol/kg]")
     g.add_argument("--env", metavar="ENV", help="take the ionic strength from a named environment")
     p.add_argument("--model", metavar="NAME", help="activity model: ideal, limiting, extended, davies, truesdell-jones")
-    p.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH (sets a(H+) and a(OH-))")
+    if with_pH:
+        p.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH (sets a(H+) and a(OH-))")
+    else:
+        p.set_defaults(pH=None)
     p.add_argument("--pressure", action="append", metavar="GAS=ATM", help="partial pressure of a gas [atm]")
 
 
@@ -120,6 +128,10 @@ def build_parser():
     c.add_argument("a")
     c.add_argument("b")
     _conditions(c)
+    ep = sub.add_parser("eph", help="potentials of half-reactions across pH (the lines of an E–pH chart)")
+    ep.add_argument("ids", nargs="+", metavar="ID", help="half-reaction ids, e.g. Zn2+/Zn O2/H2O")
+    _conditions(ep, with_pH=False)
+    ep.add_argument("--pH-values", dest="pH_values", metavar="X,Y,...", help="pH values, default 0,1,...,14")
     v = sub.add_parser("convert", help="convert a reading between reference electrodes")
     v.add_argument("value", type=float, help="the reading [V]")
     v.add_argument("--from", dest="from_ref", required=True, metavar="REF")
@@ -169,7 +181,7 @@ def build_parser():
     dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
     dc = dsub.add_parser("check", help="validate a data folder; every problem as file:record:field: message")
     dc.add_argument("dir", nargs="?", default=None)
-    for sp in (e, c, v, a, j, m, r, ms, cp):
+    for sp in (e, c, ep, v, a, j, m, r, ms, cp):
         sp.add_argument("--json", action="store_true", help="print one JSON object")
     return p
 
@@ -180,6 +192,19 @@ def _request(ns):
         return {"id": ns.id, **_conditions_request(ns)}
     if cmd == "couple":
         return {"a": ns.a, "b": ns.b, **_conditions_request(ns)}
+    if cmd == "eph":
+        cond = _conditions_request(ns)
+        req = {"lines": [{"id": i, **{k: v for k, v in cond.items() if k != "temp_C"}} for i in ns.ids]}
+        if "temp_C" in cond:
+            req["temp_C"] = cond["temp_C"]
+        if ns.pH_values is not None:
+            req["pH_values"] = []
+            for item in ns.pH_values.split(","):
+                try:
+                    req["pH_values"].append(float(item))
+                except ValueError:
+                    raise InputError("--pH-values", item, "numbers separated by commas, e.g. 0,7,14") from None
+        return req
     if cmd == "convert":
         req = {"value_V": ns.value, "from": ns.from_ref, "to": ns.to_ref}
         if ns.temp is not None:
@@ -203,6 +228,8 @@ def _request(ns):
         req = {"env": ns.env}
         if ns.materials:
             req["materials"] = [s.strip() for s in ns.materials.split(",") if s.strip()]
+        if ns.csv:
+            req["csv"] = True  # the CSV text is made only when asked for
         return req
     if cmd == "rate":
         return {"material": ns.material, "current_density_uA_per_cm2": ns.current_density}
@@ -240,6 +267,12 @@ def format_text(command, result):
     for key in HEADLINE.get(command, []):
         if key in result:
             lines.append(f"{key}: {_fmt(result[key])}")
+    if command == "eph":  # the lines as a table: one row per pH, one column per half-reaction
+        cols = result.get("lines") or []
+        lines.append("E vs SHE [V] at each pH:")
+        lines.append("\t".join(["pH"] + [c["id"] for c in cols]))
+        for k, ph in enumerate(result.get("pH") or []):
+            lines.append("\t".join([_fmt(ph)] + [f"{c['potential_V'][k]:.4f}" for c in cols]))
     steps = result.get("steps") or []
     if steps:
         lines.append("")

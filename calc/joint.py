@@ -830,6 +830,10 @@ def joint_entry(request):
 # matrix
 
 
+#: the columns of each entry of a matrix result's ``pairs``
+PAIR_FIELDS = ("a", "b", "delta_E_V", "verdict", "anode")
+
+
 @dataclass(frozen=True)
 class MatrixResult:
     """All pairs of a list of materials in one environment; :meth:`to_dict` is the JSON result."""
@@ -837,26 +841,35 @@ class MatrixResult:
     data: tuple
 
     def to_dict(self):
-        """Plain data for JSON."""
-        return _plain(dict(self.data))
+        """Plain data for JSON (the pairs are copied row by row: they are flat already)."""
+        return {k: [list(p) for p in v] if k == "pairs" else _plain(v) for k, v in self.data}
 
 
-def galvanic_matrix(env, materials=None):
+def galvanic_matrix(env, materials=None, with_csv=False):
     """Every pair of a list of materials judged in one environment.
+
+    Each pair is listed once (the upper triangle, ``a`` before ``b`` in the order of the
+    materials) as ``[a, b, delta_E_V, verdict, anode]`` (:data:`PAIR_FIELDS`): ``a``, ``b``
+    and ``anode`` are indices into ``materials`` (``anode`` None when the nominal potentials are
+    equal). A material with itself is no couple and is not listed.
 
     Args:
         env: environment id or alias [unitless]
         materials: material ids, aliases or UNS numbers; None takes every material with data for the basis [unitless]
+        with_csv: also write the pairs as CSV text (``csv``, material ids instead of indices) [unitless]
 
     Returns:
-        a :class:`MatrixResult` (cells with delta_E_V in [V], verdict, anode; csv text)
+        a :class:`MatrixResult` (pairs with delta_E_V in [V], verdict, anode; counts; csv text when asked)
 
     References:
         as :func:`judge_joint` (ASTM G82-98 (R2014); legacy anodic-index table).
 
     >>> m = galvanic_matrix("seawater-flowing", ["zinc", "mild steel"]).to_dict()
-    >>> m["cells"][0][1]["anode"], m["cells"][0][1]["verdict"]
+    >>> a, b, dE, verdict, anode = m["pairs"][0]
+    >>> m["materials"][anode], verdict
     ('zinc', 'unsuited')
+    >>> "csv" in m, galvanic_matrix("seawater-flowing", ["zinc", "mild steel"], True).to_dict()["csv"].splitlines()[2]
+    (False, 'zinc,carbon-steel,zinc,0.3450,unsuited')
     """
     ds = current()
     envrec = ds.get("environments", env, field="env")
@@ -885,7 +898,6 @@ def galvanic_matrix(env, materials=None):
         vals.append([(p.nominal, p.low, p.high) for _, p in sts])
     lim = allow + EPS_V
     neg_lim = None if neg is None else neg + EPS_V
-    diag_tier = "matched" if neg is not None else "compatible"
 
     def tier(pa, pb):
         d = pa[0] - pb[0]
@@ -899,12 +911,10 @@ def galvanic_matrix(env, materials=None):
             return "matched", d
         return "compatible", d
 
-    cells = [[None] * n for _ in range(n)]
     counts = dict.fromkeys(TIERS, 0)
-    rows = []
+    pairs = []
     for i in range(n):
         vi = vals[i]
-        cells[i][i] = {"delta_E_V": 0.0, "verdict": diag_tier, "anode": None}
         for j in range(i + 1, n):
             vj = vals[j]
             t, d = tier(vi[0], vj[0])
@@ -914,19 +924,9 @@ def galvanic_matrix(env, materials=None):
                         if (si or sj) and tier(pa, pb)[0] in ("guarded", "unsuited"):
                             t = "guarded"
             d = round(d, 6)
-            anode = None if d <= EPS_V else (ids[i] if vi[0][0] < vj[0][0] else ids[j])
-            cell = {"delta_E_V": round(d, 4), "verdict": t, "anode": anode}
-            cells[i][j] = cell
-            cells[j][i] = cell
+            anode = None if d <= EPS_V else (i if vi[0][0] < vj[0][0] else j)
             counts[t] += 1
-            rows.append((ids[i], ids[j], anode or "", round(d, 4), t))
-    buf = io.StringIO()
-    buf.write(f"# Couplewise pair table: environment {envrec['id']}, basis {basis.kind}, allowable "
-              f"{_v(allow)} V, data version {ds.version}\n")
-    writer = csv.writer(buf, lineterminator="\n")
-    writer.writerow(["a", "b", "anode", "delta_E_V", "verdict"])
-    for row in rows:
-        writer.writerow([row[0], row[1], row[2], f"{row[3]:.4f}", row[4]])
+            pairs.append((i, j, round(d, 4), t, anode))
     warnings = _basis_warnings(basis, envrec, ds)
     sources = list(dict.fromkeys(
         [s for r in recs for s in (r.get(basis.source_field),) if s] +
@@ -941,38 +941,58 @@ def galvanic_matrix(env, materials=None):
         _step("Tiers", "unsuited: ΔE > allowable; guarded: passes but the range spread or another passive/active "
               "state fails; matched: ΔE ≤ negligible; otherwise compatible", "limit inclusive", ""),
     ]
-    data = (
+    data = [
         ("env", envrec["id"]), ("basis", basis.kind), ("allowable_V", allow), ("negligible_V", neg),
         ("materials", ids), ("names", [r.get("name", r["id"]) for r in recs]),
-        ("cells", cells), ("counts", counts), ("csv", buf.getvalue()),
+        ("pair_fields", list(PAIR_FIELDS)), ("pairs", pairs), ("counts", counts),
+    ]
+    if with_csv:
+        data.append(("csv", _pairs_csv(envrec, basis, ds, ids, pairs)))
+    data += [
         ("tiers", [{"id": t, "meaning": TIER_MEANING[t]} for t in TIERS]),
         ("cautions", list(CAUTIONS)),
         ("steps", steps), ("warnings", warnings), ("sources", sources), ("data_version", ds.version),
-    )
-    return MatrixResult(data)
+    ]
+    return MatrixResult(tuple(data))
 
 
-_MATRIX_KEYS = ("env", "materials")
+def _pairs_csv(envrec, basis, ds, ids, pairs):
+    """The pairs as CSV text: a comment line (environment, basis, data version), then a, b, anode, ΔE, verdict."""
+    buf = io.StringIO()
+    buf.write(f"# Couplewise pair table: environment {envrec['id']}, basis {basis.kind}, allowable "
+              f"{_v(basis.allowable_V)} V, data version {ds.version}\n")
+    writer = csv.writer(buf, lineterminator="\n")
+    writer.writerow(["a", "b", "anode", "delta_E_V", "verdict"])
+    for i, j, d, t, anode in pairs:
+        writer.writerow([ids[i], ids[j], "" if anode is None else ids[anode], f"{d:.4f}", t])
+    return buf.getvalue()
+
+
+_MATRIX_KEYS = ("env", "materials", "csv")
 
 
 def matrix_entry(request):
     """JSON entry point: every pair of materials in one environment.
 
     Args:
-        request: ``{"env": environment, "materials": [ids] (optional)}`` [unitless]
+        request: ``{"env": environment, "materials": [ids] (optional), "csv": true (optional)}`` [unitless]
 
     Returns:
-        dict: env, materials, cells (delta_E_V [V], verdict, anode), csv, counts, steps, warnings, sources,
-        data_version
+        dict: env, basis, allowable_V, negligible_V, materials, names, pair_fields, pairs (indices a, b,
+        delta_E_V [V], verdict, anode index), counts, csv (only when asked), tiers, cautions, steps,
+        warnings, sources, data_version
 
     References:
         as :func:`judge_joint`.
 
     >>> m = matrix_entry({"env": "seawater-flowing"})
-    >>> len(m["cells"]) == len(m["materials"])
+    >>> n = len(m["materials"]); len(m["pairs"]) == n * (n - 1) // 2
     True
     """
     _check_keys(request, _MATRIX_KEYS)
     if "env" not in request:
         raise InputError("env", None, "an environment id")
-    return galvanic_matrix(request["env"], request.get("materials")).to_dict()
+    with_csv = request.get("csv")
+    if with_csv is not None and not isinstance(with_csv, bool):
+        raise InputError("csv", with_csv, "true or false (whether to add the pairs as CSV text)")
+    return galvanic_matrix(request["env"], request.get("materials"), bool(with_csv)).to_dict()

@@ -20,13 +20,13 @@ Methods:
 """
 
 import math
-from dataclasses import asdict, dataclass
+from dataclasses import asdict, dataclass, replace
 
 from . import constants
 from .conditions import KEYS as CONDITION_KEYS
-from .conditions import activities_for, key_of, note_unused, read_conditions
+from .conditions import PH_HARD, PH_USUAL, activities_for, key_of, note_unused, read_conditions
 from .dataset import current
-from .derivation import Derivation, check_temperature, fmt
+from .derivation import Derivation, check_number, check_temperature, fmt
 from .errors import DataError, InputError
 from .species import parse_species
 
@@ -313,6 +313,12 @@ class ElectrodePotential:
         return out
 
 
+def _log10_Q(ox, red, acts):
+    """log10 of the reaction quotient: reduced side over oxidised side, each activity to its coefficient."""
+    return sum(s.coeff * math.log10(acts[s.key].activity) for s in red) - \
+        sum(s.coeff * math.log10(acts[s.key].activity) for s in ox)
+
+
 def _electrode(rec_id, cond, field, used):
     """Potential of one half-reaction under checked conditions; records what it used."""
     sp = standard_potential(rec_id, cond.temp_C, field)
@@ -325,8 +331,7 @@ def _electrode(rec_id, cond, field, used):
     for s in sp.sources:
         d.cite(s)
     acts = activities_for(ox + red, cond, d, used)
-    log10_Q = sum(s.coeff * math.log10(acts[s.key].activity) for s in red) - \
-        sum(s.coeff * math.log10(acts[s.key].activity) for s in ox)
+    log10_Q = _log10_Q(ox, red, acts)
     Q = 10.0 ** log10_Q if abs(log10_Q) <= LOG10_K_MAX else None
     sym, val = _quotient_text(ox, red, acts)
     d.step("Reaction quotient (reduced side over oxidised side; solids and liquid water at unit activity)",
@@ -633,5 +638,138 @@ def couple_entry(req):
         if k not in req:
             raise InputError(k, None, "a half-reaction id such as Zn2+/Zn")
     out = couple(req["a"], req["b"], {k: v for k, v in req.items() if k not in ("a", "b")})
+    out["data_version"] = current().version
+    return out
+
+
+# --------------------------------------------------------------------------------------------
+# E–pH lines
+
+#: pH values of an E–pH line unless the request gives its own [unitless]
+EPH_PH = tuple(float(p) for p in range(15))
+#: most lines and most pH values one E–pH request may ask for
+EPH_MAX_LINES, EPH_MAX_POINTS = 8, 141
+#: condition fields of one line (the temperature is shared and pH is the axis)
+EPH_LINE_KEYS = ("id",) + tuple(k for k in CONDITION_KEYS if k not in ("temp_C", "pH"))
+
+
+def _eph_values(values):
+    if not isinstance(values, (list, tuple)) or not 2 <= len(values) <= EPH_MAX_POINTS:
+        raise InputError("pH_values", values if not isinstance(values, (list, tuple)) or len(values) < 2
+                         else f"a list of {len(values)} values", f"a list of 2 to {EPH_MAX_POINTS} pH values")
+    return [check_number(v, f"pH_values[{k}]", f"a pH from {PH_HARD[0]:g} to {PH_HARD[1]:g}",
+                         low=PH_HARD[0], high=PH_HARD[1]) for k, v in enumerate(values)]
+
+
+def eph_lines(lines, temp_C=25.0, pH_values=EPH_PH):
+    """Potentials of several half-reactions across a range of pH: the lines of an E–pH chart.
+
+    Each line is one half-reaction with its own activities, pressures or molalities (and activity
+    model); at every pH value a(H+) = 10^−pH (a(OH−) from the ion product of water) and the
+    potential is the Nernst equation with the full reaction quotient, exactly as
+    :func:`electrode_potential` computes it at that pH (without writing the derivation of every
+    point). Lines of half-reactions without H+ or OH− are flat: pH changes none of their
+    activities, so their potential is computed once and stands for every pH value.
+
+    Args:
+        lines: a list of ``{"id": half-reaction id, activities, molalities, pressures, ionic_strength,
+            env, composition, model}`` (each as in :func:`calc.conditions.read_conditions`) [unitless]
+        temp_C: temperature shared by all lines, 0 to 100 [°C]
+        pH_values: the pH values, 2 to 141 of them, each from -2 to 16 [unitless]
+
+    Returns:
+        dict with temp_C, pH (the values), lines (id, name, n, standard_potential_V [V vs SHE],
+        pH_dependent, potential_V [V vs SHE], one per pH value), steps, warnings, sources
+
+    References:
+        :func:`standard_potential`, :func:`nernst`; activities per :mod:`calc.conditions`
+        (pKw: Bandura & Lvov 2006).
+
+    >>> r = eph_lines([{"id": "H+/H2", "pressures": {"H2": 1 / 1.01325}}], 25.0, [0, 7])
+    >>> [round(e, 4) for e in r["lines"][0]["potential_V"]]
+    [0.0, -0.4141]
+    """
+    t = check_temperature(temp_C)
+    pHs = _eph_values(pH_values)
+    if not isinstance(lines, (list, tuple)) or not 1 <= len(lines) <= EPH_MAX_LINES:
+        raise InputError("lines", lines if not isinstance(lines, (list, tuple)) or not lines
+                         else f"a list of {len(lines)} lines",
+                         f"a list of 1 to {EPH_MAX_LINES} lines, each {{id, activities, pressures, ...}}")
+    d = Derivation()
+    out = []
+    for k, line in enumerate(lines):
+        pre = f"lines[{k}]."
+        if not isinstance(line, dict):
+            raise InputError(f"lines[{k}]", line, "a mapping {id, activities, pressures, ...}")
+        for key in line:
+            if key not in EPH_LINE_KEYS:
+                raise InputError(pre + str(key), line[key], "no such field",
+                                 "a line takes: " + ", ".join(EPH_LINE_KEYS) + " (temp_C is shared; pH is the axis)")
+        if "id" not in line:
+            raise InputError(pre + "id", None, "a half-reaction id such as Zn2+/Zn")
+        base = read_conditions({**{key: v for key, v in line.items() if key != "id"}, "temp_C": t}, pre)
+        sp = standard_potential(line["id"], t, pre + "id")
+        rec = half_reaction(line["id"], pre + "id")
+        ox, red, n = _sides(rec)
+        used, dl = set(), Derivation()
+        depends = any(s.name in ("H+", "OH-") for s in ox + red)
+        potentials = []
+        for pH in pHs if depends else pHs[:1]:  # without H+ or OH-, pH changes no activity: one point
+            acts = activities_for(ox + red, replace(base, pH=pH), dl, used)
+            potentials.append(nernst(sp.standard_potential_V, n, _log10_Q(ox, red, acts), t))
+        if not depends:
+            potentials *= len(pHs)
+        note_unused(base, used, dl, pre)
+        for w in sp.warnings:
+            d.warn(w["field"], w["message"])
+        for w in dl.warnings:  # the pH warnings are given once, for pH_values, below
+            f = w["field"]
+            if f != "pH":
+                d.warn(f if not f or f == "temp_C" or f.startswith(pre) else pre + f, w["message"])
+        for src in list(sp.sources) + dl.sources:
+            d.cite(src)
+        out.append({"id": rec["id"], "name": rec.get("name", rec["id"]), "n": n,
+                    "standard_potential_V": sp.standard_potential_V,
+                    "pH_dependent": depends, "potential_V": potentials})
+    outside = [p for p in pHs if not PH_USUAL[0] <= p <= PH_USUAL[1]]
+    if outside:
+        listed = ", ".join(fmt(p) for p in outside[:3]) + (", …" if len(outside) > 3 else "")
+        d.warn("pH_values", f"pH values outside 0-14 ({listed}): activities this far from the dilute range are uncertain")
+    d.step("E–pH lines: the Nernst equation at each pH",
+           "E(pH) = E°(T) − (ln10·R·T/(n·F))·log10 Q, a(H+) = 10^−pH, a(OH−) = Kw(T)/a(H+); other activities as given",
+           f"{len(out)} half-reaction(s) at {fmt(t)} °C; pH {fmt(pHs[0])} to {fmt(pHs[-1])} ({len(pHs)} values)",
+           "; ".join(f"{ln['id']}: {fmt(ln['potential_V'][0])} to {fmt(ln['potential_V'][-1])} V vs SHE" for ln in out))
+    return {"temp_C": t, "pH": pHs, "lines": out, **d.as_dict()}
+
+
+def eph_entry(req):
+    """JSON entry point ``eph``: the lines of an E–pH chart in one calculation.
+
+    Request fields: ``lines`` (see :func:`eph_lines`), ``temp_C`` (optional, default 25 °C) and
+    ``pH_values`` (optional, default 0, 1, …, 14).
+
+    Args:
+        req: the request dict [unitless]
+
+    Returns:
+        dict with temp_C, pH, lines (id, name, n, standard_potential_V, pH_dependent, potential_V),
+        steps, warnings, sources, data_version
+
+    References:
+        See :func:`eph_lines`.
+
+    >>> r = eph_entry({"lines": [{"id": "Zn2+/Zn", "activities": {"Zn2+": 1e-6}}, {"id": "O2/H2O"}]})
+    >>> len(r["pH"]), r["lines"][0]["pH_dependent"], r["lines"][1]["pH_dependent"]
+    (15, False, True)
+    """
+    _check_request(req)
+    allowed = ("lines", "temp_C", "pH_values")
+    for k in req:
+        if k not in allowed:
+            raise InputError(k, req[k], "no such field", "eph takes: " + ", ".join(allowed))
+    if "lines" not in req:
+        raise InputError("lines", None, "a list of lines, each {id, activities, pressures, ...}")
+    pHs = req.get("pH_values")
+    out = eph_lines(req["lines"], req.get("temp_C"), EPH_PH if pHs is None else pHs)
     out["data_version"] = current().version
     return out

@@ -103,14 +103,14 @@ def test_every_pair_anode_is_the_lower_potential(ds):
     m = J.matrix_entry({"env": SEA})
     ids = m["materials"]
     mids = {i: mid(ds, i) for i in ids}
-    for i, a in enumerate(ids):
-        for j, b in enumerate(ids):
-            cell = m["cells"][i][j]
-            if abs(mids[a] - mids[b]) < 1e-9:
-                assert cell["anode"] is None
-            else:
-                assert cell["anode"] == (a if mids[a] < mids[b] else b)
-                assert cell["delta_E_V"] == pytest.approx(abs(mids[a] - mids[b]), abs=1e-4)
+    assert m["pair_fields"] == ["a", "b", "delta_E_V", "verdict", "anode"]
+    for i, j, delta, verdict, anode in m["pairs"]:
+        a, b = ids[i], ids[j]
+        if abs(mids[a] - mids[b]) < 1e-9:
+            assert anode is None
+        else:
+            assert ids[anode] == (a if mids[a] < mids[b] else b)
+            assert delta == pytest.approx(abs(mids[a] - mids[b]), abs=1e-4)
 
 
 def test_carbon_steel_on_passive_316_in_seawater_fails(ds):
@@ -368,11 +368,11 @@ def test_matrix_defaults_to_every_material_with_data(ds):
         expected = [r["id"] for r in ds.records("materials") if r.get(field) is not None]
         assert m["materials"] == expected
         n = len(expected)
-        assert len(m["cells"]) == n and all(len(row) == n for row in m["cells"])
-        for i in range(n):
-            assert m["cells"][i][i]["anode"] is None and m["cells"][i][i]["delta_E_V"] == 0
-            for j in range(n):
-                assert m["cells"][i][j] == m["cells"][j][i]
+        # every pair once, a before b in the order of the materials; a material with itself is no pair
+        assert [(p[0], p[1]) for p in m["pairs"]] == [(i, j) for i in range(n) for j in range(i + 1, n)]
+        assert all(p[4] in (None, p[0], p[1]) and p[3] in J.TIERS for p in m["pairs"])
+        assert sum(m["counts"].values()) == len(m["pairs"])
+        assert "csv" not in m  # made only when asked for
 
 
 def test_matrix_agrees_with_joint(ds):
@@ -381,25 +381,29 @@ def test_matrix_agrees_with_joint(ds):
     n = len(ids)
     pairs = [(i, j) for i in range(n) for j in range(i + 1, n) if (i * 7 + j * 3) % 23 == 0]
     pairs += [(ids.index(ds.get("materials", "316")["id"]), j) for j in range(n)]
+    cells = {(p[0], p[1]): p for p in m["pairs"]}
     for i, j in pairs:
         if i == j:
             continue
         r = J.joint_entry({"a": ids[i], "b": ids[j], "env": SEA})
-        cell = m["cells"][i][j]
-        assert (cell["verdict"], cell["anode"], cell["delta_E_V"]) == (r["verdict"], r["anode"], r["delta_E_V"])
+        _, _, delta, verdict, anode = cells[(min(i, j), max(i, j))]
+        assert (verdict, None if anode is None else ids[anode], delta) == (r["verdict"], r["anode"], r["delta_E_V"])
 
 
 def test_matrix_csv(ds):
-    m = J.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"]})
+    m = J.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"], "csv": True})
+    assert {k: v for k, v in m.items() if k != "csv"} == \
+        J.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"], "csv": False})
+    cells = {(m["materials"][p[0]], m["materials"][p[1]]): p for p in m["pairs"]}
     lines = m["csv"].splitlines()
     assert lines[0].startswith("#") and ds.version in lines[0]
     rows = list(csv.reader(io.StringIO("\n".join(lines[1:]))))
     assert rows[0] == ["a", "b", "anode", "delta_E_V", "verdict"]
     assert len(rows) == 1 + 4 * 3 // 2
     for a, b, anode, d, verdict in rows[1:]:
-        i, j = m["materials"].index(a), m["materials"].index(b)
-        assert float(d) == pytest.approx(m["cells"][i][j]["delta_E_V"], abs=1e-4)
-        assert verdict == m["cells"][i][j]["verdict"] and anode == (m["cells"][i][j]["anode"] or "")
+        _, _, delta, tier, k = cells[(a, b)]
+        assert float(d) == pytest.approx(delta, abs=1e-4)
+        assert verdict == tier and anode == ("" if k is None else m["materials"][k])
 
 
 def test_matrix_input_errors():
@@ -408,6 +412,8 @@ def test_matrix_input_errors():
     assert api.call("matrix", {"env": SEA, "materials": "zinc"})["error"]["field"] == "materials"
     assert api.call("matrix", {})["error"]["field"] == "env"
     assert api.call("matrix", {"env": SEA, "cols": 1})["error"]["field"] == "cols"
+    for junk in ("yes", 1, [], {}):
+        assert api.call("matrix", {"env": SEA, "csv": junk})["error"]["field"] == "csv"
 
 
 def test_matrix_is_fast(ds):

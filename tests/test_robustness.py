@@ -190,6 +190,14 @@ CONDITIONS = {
     "pH": number(-2, 16, [0, 14, 7]),
 }
 SIDE = {k: CONDITIONS[k] for k in ("activities", "molalities", "pressures", "pH")}
+#: one line of an E–pH request: a half-reaction with its own conditions (no temperature, no pH)
+LINE_KEYS = ("activities", "molalities", "pressures", "ionic_strength", "env", "model")
+EPH_LINE = F(st.fixed_dictionaries({"id": ident(HALF_IDS).good},
+                                   optional={k: CONDITIONS[k].good for k in LINE_KEYS if k != "env"}),
+             st.one_of(st.fixed_dictionaries({"id": ident(HALF_IDS).any},
+                                             optional={k: CONDITIONS[k].any for k in LINE_KEYS}),
+                       st.fixed_dictionaries({"id": ident(HALF_IDS).good, "pH": CONDITIONS["pH"].good}),
+                       st.fixed_dictionaries({}, optional={"activities": CONDITIONS["activities"].good}), JUNK))
 
 #: entry point -> (required fields, optional fields), each a field name -> F
 FIELDS = {
@@ -211,7 +219,15 @@ FIELDS = {
     "matrix": ({"env": ident(ENV_IDS)},
                {"materials": F(st.lists(ident(MATERIAL_IDS).good, min_size=1, max_size=8),
                                st.one_of(st.just([]), st.lists(ident(MATERIAL_IDS).any, min_size=1, max_size=4),
-                                         JUNK))}),
+                                         JUNK)),
+                "csv": F(st.booleans(), st.one_of(st.sampled_from([0, 1, "true", "yes", ""]), JUNK))}),
+    "eph": ({"lines": F(st.lists(EPH_LINE.good, min_size=1, max_size=4),
+                        st.one_of(st.just([]), st.lists(EPH_LINE.good, min_size=9, max_size=10),
+                                  st.lists(EPH_LINE.any, min_size=1, max_size=3), JUNK))},
+            {"temp_C": CONDITIONS["temp_C"],
+             "pH_values": F(st.lists(number(-2, 16, [0, 14]).good, min_size=2, max_size=20),
+                            st.one_of(st.lists(number(-2, 16).good, max_size=1),
+                                      st.lists(number(-2, 16).any, max_size=4), JUNK))}),
     "rate": ({"material": ident(MATERIAL_IDS), "current_density_uA_per_cm2": number(0, 1e6, [1e4, 1e4 + 1])}, {}),
     "measured": ({"a_name": LABEL, "a_reading_V": number(-2.5, 1.5, [-0.85, -0.7]), "b_name": LABEL,
                   "b_reading_V": number(-2.5, 1.5, [-0.2, 0]), "electrode": ident(REF_IDS), "env": ident(ENV_IDS)},
@@ -406,6 +422,12 @@ COND_OPTS = [
 COMMANDS = {
     "electrode": ([arg_id(HALF_IDS)], [], COND_OPTS, ("--ionic-strength", "--env")),
     "couple": ([arg_id(HALF_IDS), arg_id(HALF_IDS)], [], COND_OPTS, ("--ionic-strength", "--env")),
+    "eph": ([arg_id(HALF_IDS), arg_id(HALF_IDS)], [],
+            [o for o in COND_OPTS if o[0] != "--pH"] +
+            [("--pH-values", F(st.lists(num_arg(0, 16, [0, 14]).good, min_size=2, max_size=6).map(",".join),
+                               st.one_of(ARG_TEXT,
+                                         st.lists(num_arg(-2, 16).bad, min_size=1, max_size=3).map(",".join))))],
+            ("--ionic-strength", "--env")),
     "convert": ([num_arg(-10, 10, [-0.85])], [("--from", arg_id(REF_IDS)), ("--to", arg_id(REF_IDS))],
                 [("--temp", num_arg(0, 100)), ("--pH", num_arg(-2, 16, [7])), ("--json", SWITCH)], ()),
     "activity": ([arg_id(ION_NAMES)], [("--ionic-strength", num_arg(0, 5, list(VALID_I_MAX.values())))],

@@ -75,9 +75,17 @@ def test_matrix_published_value(served, guarded):
     cell = page.locator(".cw-matrix td.cw-cell").first
     cell.wait_for(timeout=RUNTIME_MS)
     assert cell.inner_text().startswith("0.67")
-    assert "couplewise-matrix.csv" == page.locator("a[download]").get_attribute("download")
-    href = page.locator("a[download]").get_attribute("href")
-    assert href.startswith("data:text/csv") and "copper" in href
+    link = page.locator("a[download]")
+    assert "couplewise-matrix.csv" == link.get_attribute("download")
+    # the CSV is made on demand: the click asks the worker for it, then the browser saves it
+    with page.expect_download() as dl:
+        link.click()
+    assert dl.value.suggested_filename == "couplewise-matrix.csv"
+    assert link.get_attribute("href").startswith("data:text/csv")
+    rows = open(dl.value.path(), encoding="utf-8").read().splitlines()
+    assert rows[0].startswith("# ") and rows[1] == "a,b,anode,delta_E_V,verdict" and len(rows) == 3, rows
+    a, b, anode, delta, verdict = rows[2].split(",")
+    assert {a, b} == {"copper", "zinc"} and (anode, delta, verdict) == ("zinc", "0.6700", "unsuited")
 
 
 @pytest.mark.parametrize("name,field,value", [

@@ -381,37 +381,37 @@ async function coupleCalc(root) {
   }
 
   // E–pH picture: the water stability lines and both couples' lines against pH at the
-  // stated temperature and activities (pH-dependent couples show as slopes).
+  // stated temperature and activities (pH-dependent couples show as slopes). Every point comes
+  // from calc in ONE worker call (entry point "eph"), sent once the result is painted; a newer
+  // result makes an older chart's answer be dropped, so the next change never waits behind it.
   const ephBox = h("div", { class: "cw-charts" });
   let ephTicket = 0;
-  function requestFor(id, req, pH) {
+  function lineFor(id, req) {
     const rec = byId.get(id);
     const names = new Set(rec ? [...rec.oxidised, ...rec.reduced].map((t) => (parseSpecies(t) || {}).name) : []);
-    const rq = { id, temp_C: req.temp_C, pH };
+    const line = { id };
     for (const k of ["activities", "pressures"]) {
       const kept = Object.fromEntries(Object.entries(req[k] || {}).filter(([n]) => names.has(n)));
-      if (Object.keys(kept).length) rq[k] = kept;
+      if (Object.keys(kept).length) line[k] = kept;
     }
-    return rq;
+    return line;
   }
   async function drawEpH(req, r) {
     const my = ++ephTicket;
     const lines = [
-      { name: "H+/H2", id: "H+/H2", dash: "2 4" },
-      { name: "O2/H2O", id: "O2/H2O", dash: "2 4" },
-      { name: req.a, id: req.a, dash: "none" },
-      { name: req.b, id: req.b, dash: "8 3" },
+      { name: "H+/H2", line: { id: "H+/H2" }, dash: "2 4" },
+      { name: "O2/H2O", line: { id: "O2/H2O" }, dash: "2 4" },
+      { name: req.a, line: lineFor(req.a, req), dash: "none" },
+      { name: req.b, line: lineFor(req.b, req), dash: "8 3" },
     ];
-    const series = [];
-    for (const ln of lines) {
-      const pts = [];
-      for (let pH = 0; pH <= 14; pH += 1) {
-        const out = await calculate("electrode", requestFor(ln.id, ln.id === req.a || ln.id === req.b ? req : { temp_C: req.temp_C }, pH));
-        if (my !== ephTicket) return;
-        if (out.ok) pts.push([pH, out.result.potential_V]);
-      }
-      series.push({ name: ln.name, points: pts, dash: ln.dash });
+    const out = await calculate("eph", { lines: lines.map((ln) => ln.line), temp_C: req.temp_C });
+    if (my !== ephTicket) return;
+    if (!out.ok) {  // never leave the chart of other inputs standing
+      ephBox.replaceChildren(h("p", { class: "cw-pending", text: "E–pH chart not drawn: " + out.error.message }));
+      return;
     }
+    const series = lines.map((ln, i) => ({ name: ln.name, dash: ln.dash,
+      points: out.result.pH.map((pH, k) => [pH, out.result.lines[i].potential_V[k]]) }));
     const anode = r.anode_electrode || {};
     const phNow = req.pH !== undefined ? req.pH : 7;
     ephBox.replaceChildren(lineChart({
@@ -419,6 +419,7 @@ async function coupleCalc(root) {
       desc: "Between the dotted H+/H2 and O2/H2O lines water is stable; a couple whose line lies below the H+/H2 line can reduce water to hydrogen at that pH.",
       series, legendRight: true, marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
     }));
+    performance.mark("cw-chart-painted");
   }
 
   let lastReq = null;
@@ -878,8 +879,29 @@ async function matrixCalc(root) {
   const chosen = new Set((params.get("m") ?? MATRIX_DEFAULTS.m).split(",").filter(Boolean));
   for (const o of listBox.options) o.selected = chosen.has(o.value);
   const mField = field("cw-m", "Materials (select several; none = all with data)", listBox);
-  const csvLink = h("a", { class: "md-button", download: "couplewise-matrix.csv", text: "Download CSV" });
+  // The CSV is made by calc only when asked for (a click): the worker answers the same request
+  // with "csv": true, and the link then holds it as a data: URL (no inline script under the CSP).
+  const csvLink = h("a", { class: "md-button", download: "couplewise-matrix.csv", href: "#", text: "Download CSV" });
   ui.formBox.append(h("div", { class: "cw-row" }, envField.el, mField.el), csvLink);
+  let lastReq = null;
+  let csvFor = null; // canonical request whose CSV the link holds
+  let csvBusy = false;
+  csvLink.addEventListener("click", async (e) => {
+    const req = lastReq;
+    const key = req ? canonical(req) : null;
+    if (key && csvFor === key) return; // the link holds this table's CSV: the browser saves it
+    e.preventDefault();
+    if (!req || csvBusy) return;
+    csvBusy = true;
+    csvLink.setAttribute("aria-busy", "true");
+    const out = await calculate("matrix", { ...req, csv: true });
+    csvBusy = false;
+    csvLink.removeAttribute("aria-busy");
+    if (!out.ok) { ui.formMsg.textContent = out.error.message; return; }
+    csvLink.href = "data:text/csv;charset=utf-8," + encodeURIComponent(out.result.csv);
+    csvFor = key;
+    csvLink.click();
+  });
   function collect() {
     const sel = [...listBox.selectedOptions].map((o) => o.value);
     const req = { env: envField.control.value };
@@ -887,6 +909,8 @@ async function matrixCalc(root) {
     const p = new URLSearchParams();
     p.set("env", req.env); p.set("m", sel.join(","));
     writeUrl(p);
+    lastReq = req;
+    if (csvFor !== canonical(req)) { csvFor = null; csvLink.href = "#"; }
     return { req, bad: false };
   }
   function fieldFor(name) {
@@ -894,27 +918,73 @@ async function matrixCalc(root) {
     if (name && name.startsWith("materials")) return mField;
     return null;
   }
-  function render(r) {
-    const names = new Map(ds.materials.map((m) => [m.id, m.name]));
-    const max = Math.max(0.01, ...r.cells.flat().map((c) => (c && c.delta_E_V) || 0));
+  const names = new Map(ds.materials.map((m) => [m.id, m.name]));
+  // The table of the materials shown: built once per list of materials (element by element,
+  // detached, inserted once); a new result for the same materials (another environment) only
+  // updates its cells in place.
+  let shown = null; // { key, wrap, cells: n×n array of td (null on the diagonal), last: what each cell shows }
+  function tableFor(ids) {
+    const key = ids.join("\n");
+    if (shown && shown.key === key) return shown;
+    const n = ids.length;
     const table = h("table", { class: "cw-matrix" });
-    table.append(h("thead", {}, h("tr", {}, h("th", { text: "ΔE (V)" }), r.materials.map((id, j) => h("th", { scope: "col", title: names.get(id) || id }, h("span", { text: String(j + 1) + ". " + id }))))));
-    const body = h("tbody");
-    r.materials.forEach((id, i) => {
-      const tr = h("tr", {}, h("th", { scope: "row", text: String(i + 1) + ". " + (names.get(id) || id) }));
-      r.cells[i].forEach((c, j) => {
-        if (!c || i === j) { tr.append(h("td", { class: "cw-diag", text: "—" })); return; }
-        const k = Math.min(HEAT_SHADES - 1, Math.floor((c.delta_E_V / max) * (HEAT_SHADES - 1) + 1e-9));
-        tr.append(h("td", { class: "cw-cell cw-heat-" + k + " cw-v-" + c.verdict, title: (c.anode ? "anode: " + c.anode + "; " : "") + c.verdict },
-          fmt(c.delta_E_V, 2), h("span", { class: "cw-v-symbol", "aria-label": c.verdict, text: " " + (VERDICT_SYMBOL[c.verdict] || "") })));
-      });
+    table.append(h("thead", {}, h("tr", {}, h("th", { text: "ΔE (V)" }), ids.map((id, j) => h("th", { scope: "col", title: names.get(id) || id }, h("span", { text: String(j + 1) + ". " + id }))))));
+    const body = document.createElement("tbody");
+    const cell = document.createElement("td"); // a cell: its ΔE text, then the verdict symbol
+    cell.append("", h("span", { class: "cw-v-symbol" }, ""));
+    const diag = h("td", { class: "cw-diag", text: "—" });
+    const cells = new Array(n * n).fill(null);
+    for (let i = 0; i < n; i++) {
+      const tr = document.createElement("tr");
+      const th = document.createElement("th");
+      th.scope = "row";
+      th.textContent = String(i + 1) + ". " + (names.get(ids[i]) || ids[i]);
+      tr.append(th);
+      for (let j = 0; j < n; j++) {
+        const td = (i === j ? diag : cell).cloneNode(true);
+        if (i !== j) cells[i * n + j] = td;
+        tr.append(td);
+      }
       body.append(tr);
-    });
+    }
     table.append(body);
+    shown = { key, wrap: h("div", { class: "cw-matrix-wrap" }, table), cells, last: new Array(n * n).fill("") };
+    return shown;
+  }
+  // The result lists each pair once (upper triangle: [a, b, ΔE, verdict, anode], indices into
+  // materials); the table shows both halves.
+  function render(r) {
+    const ids = r.materials, n = ids.length;
+    let max = 0.01;
+    for (const p of r.pairs) if (p[2] > max) max = p[2];
+    const { wrap, cells, last } = tableFor(ids);
+    for (const p of r.pairs) {
+      const d = p[2], v = p[3], a = p[4];
+      const k = Math.min(HEAT_SHADES - 1, Math.floor((d / max) * (HEAT_SHADES - 1) + 1e-9));
+      const cls = "cw-cell cw-heat-" + k + " cw-v-" + v;
+      const title = (a !== null ? "anode: " + ids[a] + "; " : "") + v;
+      const text = fmt(d, 2), sym = " " + (VERDICT_SYMBOL[v] || "");
+      const now = cls + "|" + title + "|" + text;
+      for (const at of [p[0] * n + p[1], p[1] * n + p[0]]) {
+        if (last[at] === now) continue; // unchanged: no write, no style work
+        last[at] = now;
+        const td = cells[at];
+        td.className = cls;
+        td.title = title;
+        td.firstChild.data = text;
+        const span = td.lastChild;
+        span.setAttribute("aria-label", v);
+        span.firstChild.data = sym;
+      }
+    }
     const legend = h("p", { class: "cw-legend" }, "Cells: ΔE in volts (darker = larger), with the verdict symbol: ",
       ...Object.entries(VERDICT_SYMBOL).map(([v, sym]) => h("span", { class: "cw-legend-item", text: sym + " " + v + "  " })));
-    csvLink.href = "data:text/csv;charset=utf-8," + encodeURIComponent(r.csv || "");
-    fill(ui.result, legend, h("div", { class: "cw-matrix-wrap" }, table), warningsList(r.warnings), derivation(r.steps), sourcesLine(r.sources, r.data_version));
+    const rest = [warningsList(r.warnings), derivation(r.steps), sourcesLine(r.sources, r.data_version)].filter(Boolean);
+    if (wrap.parentNode === ui.result) { // the same table stays in place: replace what is around it
+      for (const c of [...ui.result.childNodes]) if (c !== wrap) c.remove();
+      wrap.before(legend);
+      wrap.after(...rest);
+    } else fill(ui.result, legend, wrap, rest);
   }
   const run = runner(ui, "matrix", render, fieldFor);
   function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
