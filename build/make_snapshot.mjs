@@ -49,7 +49,8 @@ probe = {
     "convert": {"value_V": 0, "from": "SCE", "to": "SHE"},
     "activity": {"species": "Zn2+", "ionic_strength": 0.01},
     "joint": {"a": "zinc", "b": "copper", "env": "seawater-flowing"},
-    "matrix": {"env": "seawater-flowing"},
+    "matrix": {"env": "seawater-flowing", "csv": True},
+    "eph": {"lines": [{"id": "O2/H2O"}]},
     "rate": {},
     "no-such-entry": {},
 }
