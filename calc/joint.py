@@ -25,6 +25,7 @@ anode, so i_a = i_c · A_c/A_a; i_a is turned into a rate by ASTM G102 (:mod:`ca
 
 import csv
 import io
+import weakref
 from dataclasses import dataclass
 
 from . import rate as g102
@@ -462,8 +463,29 @@ def _tier_text(tier, primary, rec_a, rec_b, basis, state_worst, state_demoted, n
 # alternatives and mitigations
 
 
+#: ranked alternatives per dataset object, then per (basis, kept part, replaced part): they do not
+#: depend on the area ratio, the input a user changes most, and ranking them judges every material
+#: (most of a joint assessment's time). Weak keys: a dataset that is replaced takes its entries along.
+_ALTERNATIVES_CACHE = weakref.WeakKeyDictionary()
+_ALTERNATIVES_CACHE_MAX = 512
+
+
 def _alternatives(ds, basis, keep, replace, names):
     """Materials that pass against ``keep``: best tier first, then by margin (allowable - ΔE); top N."""
+    per_ds = _ALTERNATIVES_CACHE.setdefault(ds, {})
+    key = (basis, keep["id"], replace["id"])
+    if key not in per_ds:
+        if len(per_ds) >= _ALTERNATIVES_CACHE_MAX:
+            per_ds.clear()
+        per_ds[key] = _rank_alternatives(ds, basis, keep, replace)
+    options = per_ds[key]
+    return {"replace": replace["id"], "keep": keep["id"],
+            "text": f"in place of {names[replace['id']]}, against {names[keep['id']]}",
+            "options": [dict(o) for o in options[:N_ALTERNATIVES]], "count": len(options)}
+
+
+def _rank_alternatives(ds, basis, keep, replace):
+    """Every material that passes against ``keep`` in place of ``replace``, ranked (a tuple)."""
     excluded = {keep["id"], replace["id"], keep.get("other_state"), replace.get("other_state")}
     options = []
     for rec in ds.records("materials"):
@@ -479,9 +501,7 @@ def _alternatives(ds, basis, keep, replace, names):
                         "margin_V": round(basis.allowable_V - primary.delta_E_V, 4),
                         "verdict": tier, "anode": primary.anode})
     options.sort(key=lambda o: (_RANK[o["verdict"]], -o["margin_V"], o["material"]))
-    return {"replace": replace["id"], "keep": keep["id"],
-            "text": f"in place of {names[replace['id']]}, against {names[keep['id']]}",
-            "options": options[:N_ALTERNATIVES], "count": len(options)}
+    return tuple(options)
 
 
 def _mitigations(tier, primary, state_demoted, state_worst, basis, area_ratio, area_given, names, have_alternatives,

@@ -328,6 +328,36 @@ def test_alternatives_pass_against_the_kept_partner(ds):
             assert again["verdict"] == o["verdict"] and again["delta_E_V"] == o["delta_E_V"]
 
 
+def test_remembered_alternatives_equal_fresh_ones_and_follow_the_data(ds):
+    """The ranked alternatives are remembered per dataset (they do not depend on the area ratio);
+    a remembered answer equals a fresh one, and other data gives other alternatives."""
+    from calc import dataset as D
+
+    req = {"a": "aluminium 5083", "b": "316", "env": SEA, "area_ratio": 0.3}
+    J._ALTERNATIVES_CACHE.clear()
+    fresh = J.joint_entry(dict(req))
+    for ar in (0.1, 2.0, 0.3):  # filled, then used
+        again = J.joint_entry(dict(req, area_ratio=ar))
+        assert again["alternatives"] == fresh["alternatives"]
+    assert J.joint_entry(dict(req)) == fresh
+    # a caller changing its result does not change the next one
+    fresh["alternatives"][0]["options"][0]["margin_V"] = -99.0
+    assert J.joint_entry(dict(req))["alternatives"][0]["options"][0]["margin_V"] != -99.0
+    # the same request against other data: the best alternative of the first list made unsuited
+    best = J.joint_entry(dict(req))["alternatives"][0]["options"][0]["material"]
+    bundle = json.loads(json.dumps(D.current().bundle))
+    for m in bundle["materials"]:
+        if m["id"] == best:
+            m["seawater_range_V_SCE"] = [-1.60, -1.55]
+    old = D._current
+    try:
+        D.set_dataset(bundle)
+        other = J.joint_entry(dict(req))["alternatives"][0]["options"]
+        assert best not in [o["material"] for o in other]
+    finally:
+        D._current = old
+
+
 def test_cautions_defer_to_standards_and_professionals():
     r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA})
     text = " ".join(r["cautions"]).lower()

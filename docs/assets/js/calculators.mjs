@@ -743,23 +743,40 @@ export const VERDICT_SYMBOL = { matched: "◎", compatible: "○", guarded: "△
 // Demo scenario of our own: stainless hinge pins on an aluminium hatch of a workboat.
 const JOINT_DEFAULTS = { a: "aluminium-5083", b: "stainless-316-passive", env: "seawater-quiescent", ar: "0.2" };
 
-let seriesSvgText = null;
-async function seriesChart(highlight) {
-  if (seriesSvgText === null) {
-    const r = await fetch(new URL("reference/galvanic-series.svg", siteRoot));
-    seriesSvgText = r.ok ? await r.text() : "";
+// The galvanic series chart (made at build time) as a page node: fetched and parsed once per
+// page; each joint calculator keeps one copy and only changes which bars are highlighted.
+let seriesSvgPromise = null;
+function seriesSvgTemplate() {
+  if (!seriesSvgPromise) {
+    seriesSvgPromise = (async () => {
+      const r = await fetch(new URL("reference/galvanic-series.svg", siteRoot));
+      const text = r.ok ? await r.text() : "";
+      if (!text) return null;
+      const svg = new DOMParser().parseFromString(text, "image/svg+xml").documentElement;
+      if (svg.nodeName !== "svg") return null;
+      svg.removeAttribute("width"); svg.removeAttribute("height");
+      svg.classList.add("cw-series-inline");
+      return document.importNode(svg, true);
+    })().catch(() => null);
   }
-  if (!seriesSvgText) return null;
-  const doc = new DOMParser().parseFromString(seriesSvgText, "image/svg+xml");
-  const svg = doc.documentElement;
-  if (svg.nodeName !== "svg") return null;
-  for (const g of svg.querySelectorAll("[data-material]")) {
-    const on = highlight.includes(g.getAttribute("data-material"));
-    g.classList.add(on ? "cw-hl" : "cw-dim");
-  }
-  svg.removeAttribute("width"); svg.removeAttribute("height");
-  svg.classList.add("cw-series-inline");
-  return document.importNode(svg, true);
+  return seriesSvgPromise;
+}
+
+function seriesChartView() {
+  let node = null;
+  return async function show(highlight) {
+    if (!node) {
+      const template = await seriesSvgTemplate();
+      if (!template) return null;
+      node = template.cloneNode(true);
+    }
+    for (const g of node.querySelectorAll("[data-material]")) {
+      const on = highlight.includes(g.getAttribute("data-material"));
+      g.classList.toggle("cw-hl", on);
+      g.classList.toggle("cw-dim", !on);
+    }
+    return node;
+  };
 }
 
 export function materialOptions(ds) {
@@ -809,6 +826,7 @@ async function jointCalc(root) {
     if (name.startsWith("area")) return arField;
     return null;
   }
+  const seriesChart = seriesChartView();
   async function render(r) {
     const range = r.delta_E_range_V || [];
     const rate = r.rate_mm_per_year;
