@@ -728,10 +728,16 @@ def test_project_criteria_validate():
 def test_reference_page_lists_every_criterion(shipped_bundle):
     from sitebuild import pages
 
-    text = pages.generate_pages(shipped_bundle)["reference/cp-criteria.md"]
+    # The Markdown form of the page (its tables are written as HTML for the site; test_pages_html
+    # checks that both forms build to the same pages)
+    text = pages.generate_pages(shipped_bundle, raw_html=False)["reference/cp-criteria.md"]
+    html = pages.generate_pages(shipped_bundle)["reference/cp-criteria.md"]
     for r in shipped_bundle["cp_criteria"]:
         row = next(ln for ln in text.splitlines() if f'id="cp-{pages._slug(r["id"])}"' in ln)
         assert f"sources.md#{pages.source_anchor(r['source'])}" in row, r["id"]
+        # the page as built: the row's cells link to the source's entry on the sources page
+        html_row = next(tr for tr in html.split("<tr>") if f'id="cp-{pages._slug(r["id"])}"' in tr)
+        assert f'href="../sources/#{pages.source_anchor(r["source"])}"' in html_row, r["id"]
         assert pages.esc(r["clause"]) in row
         for a in r.get("also") or []:
             assert f"sources.md#{pages.source_anchor(a['source'])}" in row
@@ -739,7 +745,7 @@ def test_reference_page_lists_every_criterion(shipped_bundle):
         if r.get("confidence") == "recalled":
             assert pages.RECALLED in row
     assert "ISO 15589-1&#58;2015" in text and "instant-off" in text
-    sources = pages.generate_pages(shipped_bundle)["reference/sources.md"]
+    sources = pages.generate_pages(shipped_bundle, raw_html=False)["reference/sources.md"]
     assert "Cited for: [CP criterion steel-soil-aerobic](cp-criteria.md#cp-steel-soil-aerobic)" in sources
 
 
