@@ -165,6 +165,38 @@ def test_build_time_answer_shows_while_the_runtime_is_away(browser, served, name
     assert guard.outside == []
 
 
+def test_build_time_answer_shows_when_the_runtime_fails_before_it_loads(browser, served):
+    """The runtime can fail before the build-time answers have arrived (a missing runtime file
+    fails fast): the answer is still shown when it arrives, with the note that the runtime could
+    not start. The answers' file is held back until the runtime has failed."""
+    from browserkit import new_guarded_page
+
+    ctx, page, guard = new_guarded_page(browser)
+    held = []
+
+    def handler(route):
+        if route.request.url.endswith("/pyodide/pyodide.mjs"):
+            route.fulfill(status=404, body="not here")
+        elif route.request.url.endswith("/assets/data/precomputed.json") and not held:
+            held.append(route)  # answered below, once the runtime has failed
+        else:
+            route.fallback()
+    ctx.route("**/*", handler)
+    try:
+        page.goto(served.url(COUPLE))
+        page.wait_for_function("() => document.querySelector('.cw-runtime').dataset.stage === 'failed'", timeout=60_000)
+        assert page.evaluate("() => performance.getEntriesByName('cw-early-painted').length") == 0
+        assert held, "the page did not ask for the build-time answers"
+        held[0].fallback()
+        page.wait_for_function("() => performance.getEntriesByName('cw-early-painted').length > 0", timeout=60_000)
+        page.wait_for_function("() => /could not start/.test(document.querySelector('.cw-early-note').textContent)",
+                               timeout=60_000)
+        assert page.locator(".cw-result.cw-stale").count() == 0
+    finally:
+        ctx.close()
+    assert guard.outside == []
+
+
 def test_build_time_answer_is_replaced_by_the_runtime(guarded, served, reference):
     page, guard = guarded
     page.goto(served.url(COUPLE))

@@ -211,8 +211,10 @@ export function runner(ui, name, onResult, fieldFor) {
   let queued = null;
   function setStale(stale) { ui.result.classList.toggle("cw-stale", stale && hasResult); }
   async function showEarly(my, request, answer) {
+    // Settled by a real answer only: when the runtime cannot start (it may fail before the
+    // precomputed answers have loaded), the build-time answer is still worth showing.
     let settled = false;
-    answer.then(() => { settled = true; });
+    answer.then((out) => { settled = !!out && (out.ok || !out.error || out.error.field !== "runtime"); });
     if (runtimeStage() === "ready") return;
     const data = await precomputedAnswers();
     const result = data && data.answers && data.answers[name] && data.answers[name][canonical(request)];
