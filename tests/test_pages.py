@@ -22,6 +22,8 @@ import pytest
 from sitebuild import charts, pages
 from sitebuild.dataset import bundle_from_raw, load_project_bundle, read_folder
 
+from pagekit import write_docs
+
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 MINIMAL = os.path.join(ROOT, "tests", "fixtures", "minimal")
 SVG_NS = "{http://www.w3.org/2000/svg}"
@@ -294,22 +296,13 @@ def test_hostile_text_in_a_material_build():
 
     out = pages.generate_pages(hostile_bundle())
     with tempfile.TemporaryDirectory() as tmp:
-        docs = os.path.join(tmp, "docs")
-        for path, text in out.items():
-            full = os.path.join(docs, path)
-            os.makedirs(os.path.dirname(full), exist_ok=True)
-            with open(full, "w", encoding="utf-8") as fh:
-                fh.write(text)
-        with open(os.path.join(docs, charts.CHART_PATH), "w", encoding="utf-8") as fh:
-            fh.write(charts.galvanic_series_svg(hostile_bundle()))
-        with open(os.path.join(docs, "index.md"), "w", encoding="utf-8") as fh:
-            fh.write("# Home\n")
+        write_docs(os.path.join(tmp, "docs"), out, hostile_bundle())
         with open(os.path.join(tmp, "mkdocs.yml"), "w", encoding="utf-8") as fh:
             fh.write("site_name: t\nuse_directory_urls: true\ntheme:\n  name: material\n  font: false\n"
                      "plugins: []\nvalidation:\n  anchors: warn\nmarkdown_extensions:\n"
                      + "".join(f"  - {e}\n" for e in EXTENSIONS))
         mkdocs = os.path.join(os.path.dirname(sys.executable), "mkdocs")
-        proc = subprocess.run([mkdocs, "build", "--strict", "-q"], cwd=tmp, capture_output=True, text=True,
+        proc = subprocess.run([mkdocs, "build", "--strict"], cwd=tmp, capture_output=True, text=True,
                               timeout=300, env={**os.environ, "NO_MKDOCS_2_WARNING": "1"})
         assert proc.returncode == 0, proc.stderr[-3000:]
         site = os.path.join(tmp, "site", "reference")

@@ -14,8 +14,10 @@ import sys
 
 import pytest
 
-from sitebuild import charts, pages
+from sitebuild import pages
 from sitebuild.dataset import bundle_from_raw, load_project_bundle, read_folder
+
+from pagekit import write_docs
 
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 MINIMAL = os.path.join(ROOT, "tests", "fixtures", "minimal")
@@ -40,16 +42,7 @@ def hostile_bundle():
 
 def _build(tmp, out, bundle):
     """Build the generated pages with mkdocs (Material theme, search): {page url: article html}, search docs."""
-    docs = os.path.join(tmp, "docs")
-    for path, text in out.items():
-        full = os.path.join(docs, path)
-        os.makedirs(os.path.dirname(full), exist_ok=True)
-        with open(full, "w", encoding="utf-8") as fh:
-            fh.write(text)
-    with open(os.path.join(docs, charts.CHART_PATH), "w", encoding="utf-8") as fh:
-        fh.write(charts.galvanic_series_svg(bundle))
-    with open(os.path.join(docs, "index.md"), "w", encoding="utf-8") as fh:
-        fh.write("# Home\n")
+    write_docs(os.path.join(tmp, "docs"), out, bundle)
     with open(os.path.join(tmp, "mkdocs.yml"), "w", encoding="utf-8") as fh:
         fh.write("site_name: t\nuse_directory_urls: true\ntheme:\n  name: material\n  font: false\n"
                  "plugins: [search]\nvalidation:\n  anchors: warn\nmarkdown_extensions:\n"

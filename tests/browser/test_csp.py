@@ -21,6 +21,8 @@ import time
 
 import pytest
 
+from browserkit import search
+
 pytestmark = pytest.mark.browser
 
 ROOT = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
@@ -124,24 +126,6 @@ def wait_js(page, expression, timeout_ms=RUNTIME_MS):
         if time.monotonic() > deadline:
             raise AssertionError(f"timed out waiting for {expression}")
         page.wait_for_timeout(250)
-
-
-def search(page, text, attempts=3):
-    """Type into the theme's search box as a user does (focus, then keys) until results show: a
-    query typed while the theme is still starting can be missed, as for a user who types fast."""
-    from playwright.sync_api import TimeoutError as Timeout
-
-    box = page.locator("input.md-search__input")
-    for _ in range(attempts):
-        box.click()
-        box.fill("")
-        box.press_sequentially(text, delay=30)
-        try:
-            page.locator(".md-search-result__item").first.wait_for(timeout=20_000)
-            return
-        except Timeout:
-            page.keyboard.press("Escape")
-    pytest.fail(f"no search result for {text!r}: " + page.locator(".md-search-result__meta").inner_text())
 
 
 def violations(page):
