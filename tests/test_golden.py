@@ -1,0 +1,67 @@
+"""Behaviour kept across the stage-two re-layout: a recorded sample of answers, compared.
+
+``tests/golden/answers.json.gz`` holds 1,174 requests to every entry point (generated from the
+dataset's own ids by ``tests/golden/record.py``) and the answers calc gave *before* the engine
+was split into topic modules, refused requests and their messages included. Every recorded value
+must come back: numbers to 1e-9 relative, text exactly. A result may gain new keys (a later
+stage adds to results), never lose or change one. The data version is left out (it follows the
+data files, not the behaviour).
+"""
+
+import gzip
+import json
+import math
+
+import pytest
+
+from tests.golden.record import ANSWERS, strip_version
+
+with gzip.open(ANSWERS, "rt", encoding="utf-8") as _fh:
+    ROWS = json.load(_fh)
+
+
+def _differences(old, new, path="answer"):
+    """Where ``new`` does not hold what ``old`` held (a list of 'path: old != new')."""
+    if isinstance(old, bool) or old is None or isinstance(old, str):
+        return [] if old == new else [f"{path}: {old!r} != {new!r}"]
+    if isinstance(old, (int, float)):
+        if isinstance(new, bool) or not isinstance(new, (int, float)):
+            return [f"{path}: {old!r} != {new!r}"]
+        return [] if math.isclose(old, new, rel_tol=1e-9, abs_tol=1e-12) else [f"{path}: {old!r} != {new!r}"]
+    if isinstance(old, list):
+        if not isinstance(new, list) or len(new) != len(old):
+            return [f"{path}: list of {len(old)} != {new!r:.200}"]
+        return [d for i, (o, n) in enumerate(zip(old, new)) for d in _differences(o, n, f"{path}[{i}]")]
+    if isinstance(old, dict):
+        if not isinstance(new, dict):
+            return [f"{path}: object != {new!r:.200}"]
+        return [d for k in old for d in (_differences(old[k], new[k], f"{path}.{k}") if k in new else [f"{path}.{k}: missing"])]
+    return [f"{path}: unexpected {type(old).__name__}"]
+
+
+def test_differences_finds_a_changed_number_a_changed_word_and_a_lost_key():
+    old = {"E": 1.0, "w": ["a"], "k": {"x": 1}}
+    assert _differences(old, {"E": 1.0 + 1e-6, "w": ["a"], "k": {"x": 1}}) == ["answer.E: 1.0 != 1.000001"]
+    assert _differences(old, {"E": 1.0, "w": ["b"], "k": {"x": 1}}) == ["answer.w[0]: 'a' != 'b'"]
+    assert _differences(old, {"E": 1.0, "w": ["a"], "k": {}}) == ["answer.k.x: missing"]
+    assert _differences(old, {"E": 1.0, "w": ["a"], "k": {"x": 1}, "new": 2}) == []
+
+
+def test_the_sample_covers_every_entry_point():
+    from calc.api import ENTRY_POINTS
+
+    assert {r["entry"] for r in ROWS} == set(ENTRY_POINTS)
+    assert sum(not r["answer"]["ok"] for r in ROWS) > 100  # refused requests are part of it
+
+
+@pytest.mark.parametrize("entry", sorted({r["entry"] for r in ROWS}))
+def test_answers_as_recorded_before_the_relayout(shipped, entry):
+    from calc.api import call_json
+
+    problems = []
+    for row in (r for r in ROWS if r["entry"] == entry):
+        new = strip_version(json.loads(call_json(entry, json.dumps(row["request"]))))
+        diffs = _differences(row["answer"], new)
+        if diffs:
+            problems.append(f"{json.dumps(row['request'])}: " + "; ".join(diffs[:3]))
+    assert not problems, f"{len(problems)} answer(s) changed:\n" + "\n".join(problems[:10])
