@@ -73,6 +73,46 @@ def _float(value, what):
     return float(value)
 
 
+def temperature_model_E(model, E25_V, temp_C, rid="reference electrode"):
+    """Potential of a reference electrode at a temperature from its dataset temperature model.
+
+    ``constant``: E = E25; ``linear``: E = E25 + (slope_mV_per_K/1000)·(t − t_ref_C);
+    ``polynomial``: E = Σ coeffs_V[i]·(t − t_ref_C)^i. The one statement of the model: the
+    engine, the data validator and the reference pages all call it.
+
+    Args:
+        model: the record's ``temperature`` mapping (kind, t_ref_C, slope_mV_per_K or coeffs_V) [unitless]
+        E25_V: the record's E_V_SHE, its potential at t_ref_C (25 °C in the dataset) [V vs SHE]
+        temp_C: temperature [°C]
+        rid: the electrode id, for a data error [unitless]
+
+    Returns:
+        E [V vs SHE]; raises DataError for a model with a missing or non-numeric coefficient
+
+    References:
+        The forms in which the dataset's sources state an electrode's temperature dependence
+        (a coefficient in mV/K, or a polynomial fit in t); each record cites its own source.
+
+    >>> temperature_model_E({"kind": "linear", "t_ref_C": 25, "slope_mV_per_K": 0.9}, 0.316, 35)
+    0.325
+    >>> round(temperature_model_E({"kind": "polynomial", "t_ref_C": 25, "coeffs_V": [0.2412, -6.61e-4]}, 0.2412, 35), 6)
+    0.23459
+    """
+    kind = (model or {}).get("kind", "constant")
+    if kind == "constant":
+        return E25_V
+    tref = _float(model.get("t_ref_C", 25.0), f"{rid}: t_ref_C")
+    x = temp_C - tref
+    if kind == "linear":
+        return E25_V + _float(model.get("slope_mV_per_K"), f"{rid}: slope_mV_per_K") / 1000.0 * x
+    if kind == "polynomial":
+        coeffs = [_float(c, f"{rid}: coeffs_V") for c in (model.get("coeffs_V") or [])]
+        if not coeffs:
+            raise DataError(f"reference electrode {rid}: polynomial model without coeffs_V")
+        return sum(c * x ** i for i, c in enumerate(coeffs))
+    raise DataError(f"reference electrode {rid}: unknown temperature kind {kind!r}")
+
+
 def reference_potential(ref, temp_C=25.0, pH=None, field="from"):
     """Potential of a reference electrode vs SHE at a temperature.
 
@@ -116,31 +156,23 @@ def reference_potential(ref, temp_C=25.0, pH=None, field="from"):
     kind = model.get("kind", "constant")
     d.cite(model.get("source"))
     conf = rec.get("confidence")
+    E = temperature_model_E(model, E25, t, rid)
     tref = _float(model.get("t_ref_C", 25.0), f"{rid}: t_ref_C")
     if kind == "polynomial":
-        coeffs = [_float(c, f"{rid}: coeffs_V") for c in (model.get("coeffs_V") or [])]
-        if not coeffs:
-            raise DataError(f"reference electrode {rid}: polynomial model without coeffs_V")
         x = t - tref
-        E = sum(c * x ** i for i, c in enumerate(coeffs))
-        terms = " + ".join(f"({fmt(c)})·({fmt(x)})^{i}" if i else f"{fmt(c)}" for i, c in enumerate(coeffs))
+        terms = " + ".join(f"({fmt(c)})·({fmt(x)})^{i}" if i else f"{fmt(c)}" for i, c in enumerate(model["coeffs_V"]))
         d.step(f"{rid} vs SHE at the temperature (polynomial)", f"E(t) = Σ c_i·(t − {fmt(tref)} °C)^i [V]",
                f"E = {terms}", f"E({rid}, {fmt(t)} °C) = {fmt(E)} V vs SHE")
     elif kind == "linear":
-        slope = _float(model.get("slope_mV_per_K"), f"{rid}: slope_mV_per_K")
-        base = _float(model.get("E_ref_V", E25), f"{rid}: E_ref_V")
-        E = base + slope / 1000.0 * (t - tref)
+        slope = model["slope_mV_per_K"]
         d.step(f"{rid} vs SHE at the temperature (linear)", f"E(t) = E({fmt(tref)} °C) + slope·(t − {fmt(tref)} °C)",
-               f"E = {fmt(base)} V + ({fmt(slope)} mV/K)·({fmt(t)} − {fmt(tref)}) K",
+               f"E = {fmt(E25)} V + ({fmt(slope)} mV/K)·({fmt(t)} − {fmt(tref)}) K",
                f"E({rid}, {fmt(t)} °C) = {fmt(E)} V vs SHE")
-    elif kind == "constant":
-        E = E25
+    else:
         d.step(f"{rid} vs SHE", "no temperature dependence in the dataset: E(t) = E(25 °C)",
                f"source {rec.get('source', '?')}" + (f" ({conf})" if conf else ""), f"E({rid}) = {fmt(E)} V vs SHE")
         if model.get("valid_C") is None and abs(t - 25.0) > 1e-9:
             d.warn("temp_C", f"{rid} has no temperature model in the dataset: its 25 °C value is used at {fmt(t)} °C")
-    else:
-        raise DataError(f"reference electrode {rid}: unknown temperature kind {kind!r}")
     if model.get("valid_C") is not None:
         lo, hi = (_float(v, f"{rid}: valid_C") for v in model["valid_C"])
         if not lo - 1e-9 <= t <= hi + 1e-9:
