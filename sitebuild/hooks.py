@@ -4,7 +4,9 @@ Wired in ``mkdocs.yml`` (``hooks: [sitebuild/hooks.py]``). What happens on a bui
 
 1. ``on_config``: the YAML dataset is read strictly, validated (every problem listed, the build
    stops on any) and bundled with its content hash as the version.
-2. ``on_files``: generated reference pages and ``assets/data/dataset.json`` join the site.
+2. ``on_files``: generated reference pages, ``assets/data/dataset.json`` and
+   ``assets/data/spec.json`` (calc's input bounds and each calculator's opening request) join
+   the site.
 3. ``on_page_markdown``: ``<!-- cw:NAME -->`` markers in hand-written pages are replaced; an
    unknown marker fails the build.
 4. ``on_post_build``: the five Pyodide runtime files are copied from ``node_modules/pyodide``
@@ -79,6 +81,10 @@ def on_files(files, config, **kwargs):
     files.append(File.generated(config, "reference/galvanic-series.svg", content=galvanic_series_svg(bundle)))
     data = json.dumps(bundle, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
     files.append(File.generated(config, "assets/data/dataset.json", content=data))
+    from calc.spec import page_spec  # bounds and opening requests, written once in calc
+
+    spec = json.dumps(page_spec(), ensure_ascii=False, separators=(",", ":"), allow_nan=False)
+    files.append(File.generated(config, "assets/data/spec.json", content=spec))
     return files
 
 
@@ -279,12 +285,9 @@ def on_post_build(config, **kwargs):
     }
     with open(os.path.join(site, "assets", "runtime.json"), "w", encoding="utf-8") as fh:
         json.dump(runtime, fh, indent=1)
-    from sitebuild.precompute import PrecomputeError, write_precomputed
+    from sitebuild.precompute import write_precomputed
 
-    try:  # the calculators' opening answers, shown while the runtime starts
-        write_precomputed(site, bundle)
-    except PrecomputeError as exc:
-        raise PluginError(str(exc)) from None
+    write_precomputed(site, bundle)  # the calculators' opening answers, shown while the runtime starts
     from sitebuild.csp import CSPError, apply_csp
 
     try:  # every page gets the Content-Security-Policy; csp.txt holds it for a server's header

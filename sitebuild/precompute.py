@@ -1,33 +1,18 @@
 """Answers to each calculator's opening request, computed at build time under CPython.
 
-A calculator page opens with its demo inputs (the ``*_DEFAULTS`` objects in
-``docs/assets/js/calculators.mjs``). Their answers are computed here with the same calc and the
-same dataset the page's runtime uses, and written to ``assets/data/precomputed.json``, keyed by
-calculator name and the request's canonical JSON. The page shows such an answer at once, marked
-"computed at build time", while the runtime starts, and only when its own request is exactly
-the precomputed one; the runtime's answer then replaces it.
-
-The requests are rebuilt here the way each calculator's ``collect()`` builds its first request
-(no URL parameters). If the page and this module ever disagree, the page simply finds no entry
-and waits for the runtime: slower, never wrong. ``tests/browser/test_startup_fallback.py``
-checks that every calculator finds its entry.
+A calculator page opens with its demonstration request, ``calc.spec.OPENINGS`` (the page reads
+the same requests from ``assets/data/spec.json``). Their answers are computed here with the same
+calc and the same dataset the page's runtime uses, and written to
+``assets/data/precomputed.json``, keyed by calculator name and the request's canonical JSON. The
+page shows such an answer at once, marked "computed at build time", while the runtime starts,
+and only when its own request is exactly the precomputed one; the runtime's answer then replaces
+it. ``tests/browser/test_startup_fallback.py`` checks that every calculator finds its entry.
 """
 
 import decimal
 import json
 import math
 import os
-import re
-
-HERE = os.path.dirname(os.path.abspath(__file__))
-ROOT = os.path.dirname(HERE)
-CALCULATORS_JS = os.path.join(ROOT, "docs", "assets", "js", "calculators.mjs")
-SPECIES_RE = re.compile(r"^(?:(\d+(?:\.\d+)?) )?(.+)\((aq|s|l|g)\)$")  # as parseSpecies in calculators.mjs
-DEFAULTS_RE = re.compile(r"^const ([A-Z]+)_DEFAULTS = (\{.*\});\s*$", re.M)
-
-
-class PrecomputeError(Exception):
-    """The calculators' defaults could not be read."""
 
 
 def js_number(x):
@@ -76,111 +61,21 @@ def canonical(value):
     return json.dumps(value, ensure_ascii=False)
 
 
-def read_defaults(path=CALCULATORS_JS):
-    """The ``*_DEFAULTS`` object literals of calculators.mjs, as dicts keyed by their prefix."""
-    with open(path, encoding="utf-8") as fh:
-        text = fh.read()
-    out = {}
-    for name, literal in DEFAULTS_RE.findall(text):
-        as_json = re.sub(r'([{,]\s*)([A-Za-z_]\w*)\s*:', r'\1"\2":', literal)
-        try:
-            out[name.lower()] = json.loads(as_json)
-        except ValueError as exc:
-            raise PrecomputeError(f"{path}: {name}_DEFAULTS is not a plain object literal ({exc})") from None
-    return out
-
-
-def _species(reaction):
-    """(name, phase) of the dissolved and gaseous species, and whether H+/OH- appear."""
-    seen, needs_ph = {}, False
-    for text in list(reaction.get("oxidised", [])) + list(reaction.get("reduced", [])):
-        m = SPECIES_RE.match(str(text).strip())
-        if not m:
-            continue
-        name, phase = m.group(2), m.group(3)
-        if name in ("H+", "OH-"):
-            needs_ph = True
-        elif phase in ("aq", "g"):
-            seen[name] = phase
-    return seen, needs_ph
-
-
-def _num(text):
-    return float(str(text).strip().replace(",", ".").replace("−", "-"))
-
-
-def default_requests(bundle, defaults):
-    """Each calculator's opening request, as its collect() builds it; name -> request."""
-    reqs = {}
-    by_id = {r["id"]: r for r in bundle["half_reactions"]}
-    d = defaults.get("couple")
-    if d and d["a"] in by_id and d["b"] in by_id:
-        seen, needs_ph = {}, False
-        for rid in (d["a"], d["b"]):
-            s, p = _species(by_id[rid])
-            seen.update(s)
-            needs_ph = needs_ph or p
-        req = {"a": d["a"], "b": d["b"], "temp_C": _num(d["t"]), "activities": {}, "pressures": {}}
-        if needs_ph:
-            req["pH"] = _num(d["pH"])
-        for name, phase in seen.items():
-            req["pressures" if phase == "g" else "activities"][name] = _num(d.get("act", {}).get(name, "1"))
-        reqs["couple"] = req
-    d = defaults.get("electrode")
-    if d and d["id"] in by_id:
-        seen, needs_ph = _species(by_id[d["id"]])
-        req = {"id": d["id"], "temp_C": _num(d["t"])}
-        if needs_ph:
-            req["pH"] = _num(d["pH"])
-        acts = {n: _num(d.get("act", {}).get(n, "1")) for n, ph in seen.items() if ph == "aq"}
-        press = {n: _num(d.get("act", {}).get(n, "1")) for n, ph in seen.items() if ph == "g"}
-        if acts:
-            req["activities"] = acts
-        if press:
-            req["pressures"] = press
-        reqs["electrode"] = req
-    d = defaults.get("convert")
-    if d:
-        req = {"from": d["from"], "to": d["to"], "value_V": _num(d["v"]), "temp_C": _num(d["t"])}
-        if "RHE" in (d["from"], d["to"]):
-            req["pH"] = _num(d["pH"])
-        reqs["convert"] = req
-    d = defaults.get("activity")
-    if d:
-        reqs["activity"] = {"species": d["sp"], "model": d["model"], "ionic_strength": _num(d["I"]), "temp_C": _num(d["t"])}
-    d = defaults.get("joint")
-    if d:
-        req = {"a": d["a"], "b": d["b"], "env": d["env"]}
-        if str(d.get("ar", "")).strip():
-            req["area_ratio"] = _num(d["ar"])
-        reqs["joint"] = req
-    d = defaults.get("matrix")
-    if d:
-        chosen = set(filter(None, d["m"].split(",")))
-        families = {}
-        for m in bundle["materials"]:  # the page lists materials grouped by family, in file order
-            families.setdefault(m.get("family") or "other", []).append(m["id"])
-        picked = [mid for ids in families.values() for mid in ids if mid in chosen]
-        req = {"env": d["env"]}
-        if picked:
-            req["materials"] = picked
-        reqs["matrix"] = req
-    return reqs
-
-
-def precompute(bundle, defaults=None):
+def precompute(bundle, openings=None):
     """``{"data_version", "answers": {name: {canonical request: result}}}`` computed by calc
     under CPython with this build's dataset (round-tripped through JSON as the wheel carries it).
     Requests that calc rejects are left out (the page then waits for the runtime)."""
     import calc.dataset
     from calc.api import call
 
-    defaults = read_defaults() if defaults is None else defaults
+    from calc.spec import OPENINGS
+
+    openings = OPENINGS if openings is None else openings
     before = calc.dataset._current
     try:
         calc.dataset.set_dataset(json.dumps(bundle, ensure_ascii=False, allow_nan=False))
         answers = {}
-        for name, req in default_requests(bundle, defaults).items():
+        for name, req in openings.items():
             out = call(name, json.loads(json.dumps(req)))
             if out.get("ok"):
                 answers.setdefault(name, {})[canonical(req)] = out["result"]

@@ -44,15 +44,14 @@ def test_numbers_as_javascript_writes_them(value, text):
     assert js_number(value) == text
 
 
-def test_default_requests_follow_the_page_defaults(shipped_bundle):
-    from sitebuild.precompute import canonical, default_requests, precompute, read_defaults
+def test_every_opening_request_has_its_build_time_answer(shipped_bundle):
+    # the page and the build read the same opening requests (calc.spec): nothing parses the page's JS
+    from calc.spec import OPENINGS, page_spec
+    from sitebuild.precompute import canonical, precompute
 
-    defaults = read_defaults()
-    assert {"couple", "electrode", "convert", "activity", "joint", "matrix"} <= set(defaults)
-    reqs = default_requests(shipped_bundle, defaults)
-    assert reqs["couple"]["a"] == defaults["couple"]["a"]
-    assert reqs["couple"]["temp_C"] == float(defaults["couple"]["t"])
-    data = precompute(shipped_bundle, defaults)
+    assert {"couple", "electrode", "convert", "activity", "joint", "matrix"} <= set(OPENINGS)
+    assert page_spec()["openings"] == OPENINGS
+    data = precompute(shipped_bundle)
     assert data["data_version"] == shipped_bundle["version"]
-    for name, req in reqs.items():
+    for name, req in OPENINGS.items():
         assert canonical(req) in data["answers"][name], name
