@@ -26,9 +26,11 @@ import math
 from dataclasses import asdict, dataclass
 
 from . import water
+from .bounds import BOUNDS, check
 from .dataset import current
-from .derivation import Derivation, check_number, check_temperature, fmt
+from .derivation import Derivation, check_temperature, fmt
 from .errors import InputError
+from .requests import read
 from .species import parse_species
 
 #: model name -> highest ionic strength where the model is taken as valid [mol/kg]
@@ -38,7 +40,7 @@ DEFAULT_MODEL = "davies"
 #: Davies (1962) coefficient of the linear term [kg/mol]
 DAVIES_COEFF = 0.3
 #: highest ionic strength accepted at all: the models lose meaning far above 1 mol/kg [mol/kg]
-I_HARD_MAX = 5.0
+I_HARD_MAX = BOUNDS["ionic_strength"].high
 #: highest ion charge accepted (free aqueous ions beyond ±4 are rare; common practice) [unitless]
 ION_CHARGE_MAX = 6
 _MODEL_WORDS = "one of ideal, limiting, extended, davies"
@@ -109,7 +111,7 @@ def ionic_strength(composition):
     total = 0.0
     for name, m in composition.items():
         sp = ion(name)
-        m = check_number(m, f"composition.{name}", "a molality of 0 or more [mol/kg]", low=0.0, high=50.0)
+        m = check("composition_molality", m, f"composition.{name}")
         total += m * sp.charge ** 2
     return 0.5 * total
 
@@ -219,8 +221,7 @@ def check_ionic_strength(value, field="ionic_strength"):
     >>> check_ionic_strength(0.7)
     0.7
     """
-    return check_number(value, field, f"an ionic strength from 0 to {I_HARD_MAX:g} mol/kg",
-                        low=0.0, high=I_HARD_MAX)
+    return check("ionic_strength", value, field)
 
 
 def ion_size(sp):
@@ -314,7 +315,7 @@ def activity_coefficient(species, ionic_strength_mol_kg, model=None, temp_C=25.0
     size = None
     if model == "extended" and sp.charge != 0:
         if size_angstrom is not None:
-            size = check_number(size_angstrom, "size_angstrom", "an ion size from 1 to 15 Å", low=1.0, high=15.0)
+            size = check("size_angstrom", size_angstrom)
         else:
             found = ion_size(sp)
             if found is None:
@@ -351,6 +352,9 @@ def activity_coefficient(species, ionic_strength_mol_kg, model=None, temp_C=25.0
                                tuple(d.steps), tuple(d.warnings), tuple(d.sources))
 
 
+_ACTIVITY_KEYS = ("species", "ionic_strength", "composition", "env", "model", "temp_C", "size_angstrom", "molality")
+
+
 def activity_entry(req):
     """JSON entry point ``activity``: the activity coefficient of one ion.
 
@@ -373,8 +377,7 @@ def activity_entry(req):
     >>> round(r["gamma"], 4)
     0.9635
     """
-    if not isinstance(req, dict):
-        raise InputError("request", type(req).__name__, "a JSON object")
+    read(req, "activity", optional=_ACTIVITY_KEYS)
     d = Derivation()
     sources = [k for k in ("ionic_strength", "composition", "env") if req.get(k) is not None]
     if len(sources) != 1:
@@ -399,7 +402,7 @@ def activity_entry(req):
     for s in out["sources"]:
         d.cite(s)
     if req.get("molality") is not None:
-        m = check_number(req["molality"], "molality", "a molality above 0 [mol/kg]", low=0.0, low_open=True)
+        m = check("molality", req["molality"])
         out["molality"] = m
         out["activity"] = res.gamma * m
         d.step("Activity from molality", "a = γ·m/m°, m° = 1 mol/kg", f"a = {fmt(res.gamma, 5)}·{fmt(m)}",

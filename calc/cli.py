@@ -9,8 +9,10 @@ import json
 import re
 import sys
 
-from . import api
-from .errors import InputError
+from . import api, dataset
+from .activity import MODELS
+from .errors import DataError, InputError
+from .spec import OPENINGS
 
 # fields printed first, in this order, by the text output of each command
 HEADLINE = {
@@ -72,7 +74,7 @@ def _conditions(p, with_pH=True):
     g = p.add_mutually_exclusive_group()
     g.add_argument("--ionic-strength", type=float, metavar="I", help="ionic strength [mol/kg]")
     g.add_argument("--env", metavar="ENV", help="take the ionic strength from a named environment")
-    p.add_argument("--model", metavar="NAME", help="activity model: ideal, limiting, extended, davies, truesdell-jones")
+    p.add_argument("--model", metavar="NAME", help="activity model: " + ", ".join(MODELS))
     if with_pH:
         p.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH (sets a(H+) and a(OH-))")
     else:
@@ -181,6 +183,9 @@ def build_parser():
     dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
     dc = dsub.add_parser("check", help="validate a data folder; every problem as file:record:field: message")
     dc.add_argument("dir", nargs="?", default=None)
+    dsub.add_parser("bundle", help="validate data/ and write calc/dataset.json, the bundle the engine reads")
+    ex = sub.add_parser("example", help="print a calculator's opening request (the page's demonstration inputs) as JSON")
+    ex.add_argument("name", choices=sorted(OPENINGS))
     for sp in (e, c, ep, v, a, j, m, r, ms, cp):
         sp.add_argument("--json", action="store_true", help="print one JSON object")
     return p
@@ -307,6 +312,47 @@ def _data_check(directory):
     return 1 if errors else 0
 
 
+def _data_bundle():
+    try:
+        from sitebuild.dataset import DataProblems, write_engine_bundle
+    except ImportError:
+        sys.stderr.write("couplewise: 'data bundle' needs the project's build tools (pyyaml, jsonschema): "
+                         "run it from the project's .venv\n")
+        return 2
+    try:
+        path = write_engine_bundle()
+    except DataProblems as exc:
+        for prob in exc.problems:
+            print(prob)
+        sys.stderr.write(f"couplewise: the data has {len(exc.problems)} problem(s); nothing was written\n")
+        return 1
+    print(f"wrote {path}", file=sys.stderr)
+    return 0
+
+
+def _fresh_bundle():
+    """None when the engine's bundle is usable; rebuilt with the build tools when missing or
+    stale (a checkout); else the message saying what to do."""
+    try:
+        dataset.current()
+        return None
+    except DataError as exc:
+        problem = str(exc)
+    try:
+        from sitebuild.dataset import DataProblems, write_engine_bundle
+    except ImportError:
+        return problem
+    try:
+        write_engine_bundle()
+        dataset.current()
+    except DataProblems as exc:
+        return (f"the project's data has {len(exc.problems)} problem(s); run 'couplewise data check': "
+                + exc.problems[0])
+    except DataError as exc:
+        return str(exc)
+    return None
+
+
 def main(argv=None):
     """Run the command line; returns the exit status."""
     parser = build_parser()
@@ -315,10 +361,19 @@ def main(argv=None):
         parser.print_help()
         return 2
     if ns.command == "data":
+        if ns.data_command == "bundle":
+            return _data_bundle()
         if ns.data_command != "check":
-            sys.stderr.write("couplewise: data needs a sub-command: check\n")
+            sys.stderr.write("couplewise: data needs a sub-command: check or bundle\n")
             return 2
         return _data_check(ns.dir)
+    if ns.command == "example":
+        print(json.dumps(OPENINGS[ns.name], ensure_ascii=False))
+        return 0
+    problem = _fresh_bundle()
+    if problem:
+        sys.stderr.write(f"couplewise: {problem}\n")
+        return 2
     try:
         request = _request(ns)
     except InputError as exc:

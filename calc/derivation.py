@@ -14,9 +14,6 @@ import math
 
 from .errors import InputError
 
-#: lowest and highest temperature accepted by the engine [°C]
-T_MIN_C = 0.0
-T_MAX_C = 100.0
 #: the temperature of the tabulated standard potentials [°C]
 T_REF_C = 25.0
 
@@ -119,8 +116,9 @@ def check_temperature(value, field="temp_C"):
     """
     if value is None:
         return T_REF_C
-    return check_number(value, field, "a temperature from 0 to 100 °C (liquid water at 1 atm)",
-                        low=T_MIN_C, high=T_MAX_C)
+    from .bounds import check  # the bound is written in calc.bounds (which imports this module)
+
+    return check("temp_C", value, field)
 
 
 class Derivation:

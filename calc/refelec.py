@@ -20,18 +20,17 @@ import re
 from dataclasses import dataclass
 
 from . import constants
+from .bounds import BOUNDS, check
 from .dataset import current
-from .derivation import Derivation, check_number, check_temperature, fmt
+from .derivation import Derivation, check_temperature, fmt
 from .errors import DataError, InputError
+from .requests import norm as _norm
+from .requests import read
 
 #: largest reading accepted: beyond it no aqueous measurement makes sense [V]
-VALUE_MAX_V = 10.0
+VALUE_MAX_V = BOUNDS["value_V"].high
 _RHE_NAMES = {"rhe", "reversiblehydrogenelectrode", "reversiblehydrogen"}
 _SHE_NAMES = {"she", "standardhydrogenelectrode", "nhe"}
-
-
-def _norm(text):
-    return re.sub(r"[\s_\-]+", "", str(text)).casefold()
 
 
 def rhe_potential(pH, temp_C=25.0):
@@ -137,7 +136,7 @@ def reference_potential(ref, temp_C=25.0, pH=None, field="from"):
     if isinstance(ref, str) and _norm(ref) in _RHE_NAMES:
         if pH is None:
             raise InputError("pH", None, "a pH from -2 to 16 (the RHE potential depends on it)")
-        pH = check_number(pH, "pH", "a pH from -2 to 16", low=-2.0, high=16.0)
+        pH = check("pH", pH)
         E = rhe_potential(pH, t)
         slope = constants.nernst_slope(t + constants.T_ZERO_C)
         d.step("Reversible hydrogen electrode vs SHE", "E(RHE) = −(ln10·R·T/F)·pH, p(H2) = 1 bar",
@@ -203,11 +202,10 @@ def convert(value_V, from_ref, to_ref, temp_C=25.0, pH=None):
     >>> round(convert(0.5, "SHE", "RHE", 25.0, 7.0)["value_V"], 5)
     0.91412
     """
-    v = check_number(value_V, "value_V", f"a reading from -{VALUE_MAX_V:g} to {VALUE_MAX_V:g} V",
-                     low=-VALUE_MAX_V, high=VALUE_MAX_V)
+    v = check("value_V", value_V)
     t = check_temperature(temp_C)
     if pH is not None:
-        pH = check_number(pH, "pH", "a pH from -2 to 16", low=-2.0, high=16.0)
+        pH = check("pH", pH)
     rf = reference_potential(from_ref, t, pH, "from")
     rt = reference_potential(to_ref, t, pH, "to")
     d = Derivation()
@@ -248,15 +246,8 @@ def convert_entry(req):
     >>> r["to"], abs(r["value_V"] - (-0.85 + r["E_from_V_SHE"])) < 1e-12
     ('SHE', True)
     """
-    if not isinstance(req, dict):
-        raise InputError("request", type(req).__name__, "a JSON object")
-    allowed = {"value_V", "from", "to", "temp_C", "pH"}
-    for k in req:
-        if k not in allowed:
-            raise InputError(k, req[k], "no such field", "convert takes: " + ", ".join(sorted(allowed)))
-    for k in ("value_V", "from", "to"):
-        if k not in req:
-            raise InputError(k, None, "a reading in V" if k == "value_V" else "a reference electrode id such as SCE")
+    electrode = "a reference electrode id such as SCE"
+    read(req, "convert", {"value_V": "a reading in V", "from": electrode, "to": electrode}, ("temp_C", "pH"))
     out = convert(req["value_V"], req["from"], req["to"], req.get("temp_C"), req.get("pH"))
     out["data_version"] = current().version
     return out

@@ -165,3 +165,27 @@ def balance_problems(oxidised, reduced, n):
     if abs(ql - n - qr) > 1e-9:
         problems.append(f"charge: oxidised side {ql:g} - {n:g} e- = {ql - n:g}, reduced side {qr:g}")
     return problems
+
+
+def as_record(text, side):
+    """One species of a half-reaction as the bundle carries it, parsed, for the page.
+
+    The page needs each species' name (as written, the key of its activity field), phase and
+    coefficient; it gets them here, parsed once at build time, so it holds no species grammar.
+
+    Args:
+        text: species as ``[COEFF ]FORMULA[CHARGE](PHASE)`` [unitless]
+        side: ``oxidised`` or ``reduced`` [unitless]
+
+    Returns:
+        ``{"text", "name", "phase", "coeff", "charge", "side"}``
+
+    References:
+        Species grammar of DEVELOPERS.md.
+
+    >>> as_record("2 H2O(l)", "reduced")["name"], as_record("Hg2^2+(aq)", "oxidised")["charge"]
+    ('H2O', 2)
+    """
+    sp = parse_species(text)
+    name = _SPECIES_RE.match(text.strip()).group(2)
+    return {"text": text, "name": name, "phase": sp.phase, "coeff": sp.coeff, "charge": sp.charge, "side": side}
