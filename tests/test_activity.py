@@ -6,7 +6,8 @@ import math
 import pytest
 
 from calc import activity, water
-from calc.activity import VALID_I_MAX, activity_coefficient, activity_entry, ionic_strength, log10_gamma
+from calc.activity import VALID_I_MAX, activity_coefficient, activity_entry, log10_gamma
+from calc.ionic import ionic_strength
 from calc.errors import InputError
 
 A25 = water.debye_huckel_A(25)
