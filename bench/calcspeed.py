@@ -38,7 +38,7 @@ def _electrode_requests(n):
 
 def _bench_electrodes(n, repeats):
     import time
-    from calc.potentials import electrode_entry
+    from calc.electrode import electrode_entry
     reqs = _electrode_requests(n)
     for r in reqs[:20]:
         electrode_entry(r)  # warm-up

@@ -17,9 +17,9 @@ from .errors import DataError, InputError
 
 #: entry point name -> "module:function" (imported on first use, so start-up stays small)
 ENTRY_POINTS = {
-    "electrode": "calc.potentials:electrode_entry",
-    "couple": "calc.potentials:couple_entry",
-    "eph": "calc.potentials:eph_entry",
+    "electrode": "calc.electrode:electrode_entry",
+    "couple": "calc.cell:couple_entry",
+    "eph": "calc.eph:eph_entry",
     "convert": "calc.refelec:convert_entry",
     "activity": "calc.activity:activity_entry",
     "joint": "calc.joint:joint_entry",
@@ -43,7 +43,20 @@ def _finite(value, path="result"):
 
 
 def entry(name):
-    """The function behind an entry point name."""
+    """The function behind an entry point name.
+
+    Args:
+        name: entry point name, e.g. ``couple`` [unitless]
+
+    Returns:
+        the entry function (request dict in, result dict out)
+
+    References:
+        Project convention (DESIGN.md: the entry-point table).
+
+    >>> entry("convert").__name__
+    'convert_entry'
+    """
     if name not in ENTRY_POINTS:
         raise InputError("calculation", name, "one of " + ", ".join(sorted(ENTRY_POINTS)))
     module, func = ENTRY_POINTS[name].split(":")
@@ -81,6 +94,9 @@ def call(name, request):
     Returns:
         ``{"ok": True, "result": {...}}`` or ``{"ok": False, "error": {"field", "message"}}``
 
+    References:
+        Project convention (DESIGN.md: one JSON-in/JSON-out entry point per calculation).
+
     >>> call("nope", {})["error"]["field"]
     'calculation'
     """
@@ -95,6 +111,16 @@ def call_json(name, text):
     Infinity beforehand: ``json.dumps(allow_nan=False)`` refuses them while writing, and only
     then is the result walked to name the field that holds one (a large result, such as the
     matrix of every material, is written once instead of walked and then written).
+
+    Args:
+        name: entry point name, e.g. ``couple`` [unitless]
+        text: the request as JSON text [unitless]
+
+    Returns:
+        the outcome as JSON text
+
+    References:
+        Project convention (DESIGN.md: the same entry points serve the CLI and the page).
 
     >>> call_json("electrode", '{"id": "Cu2+/Cu", "temp_C": "hot"}')[:36]
     '{"ok": false, "error": {"field": "te'

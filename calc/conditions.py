@@ -1,6 +1,6 @@
 """Solution conditions of a request and the activity of every species of a half-reaction.
 
-Conventions (stated once, used by :mod:`calc.potentials`):
+Conventions (stated once, used by :mod:`calc.electrode`, :mod:`calc.cell` and :mod:`calc.eph`):
 
 - aqueous species: the activity given (``activities``), or γ·m from a molality (``molalities``)
   with γ from the chosen model (:mod:`calc.activity`) at the ionic strength taken from, in order,
@@ -93,7 +93,7 @@ class Conditions:
     env: str
 
 
-def read_conditions(req, prefix=""):
+def read_conditions(req, prefix="", checked_temp_C=None):
     """Check the condition fields of a request.
 
     Fields: ``temp_C`` [°C]; ``activities`` {species: a} [unitless]; ``molalities``
@@ -103,6 +103,8 @@ def read_conditions(req, prefix=""):
     Args:
         req: the request dict [unitless]
         prefix: prefix of field names in error messages, e.g. ``a_conditions.`` [unitless]
+        checked_temp_C: the request's temperature when it is already checked (it is then not read
+            again from ``req``), or None [°C]
 
     Returns:
         a :class:`Conditions`
@@ -114,7 +116,7 @@ def read_conditions(req, prefix=""):
     >>> c.pH, c.activities["Zn2+"][1], c.temp_C
     (7.0, 0.1, 25.0)
     """
-    t = check_temperature(req.get("temp_C"), prefix + "temp_C")
+    t = checked_temp_C if checked_temp_C is not None else check_temperature(req.get("temp_C"), prefix + "temp_C")
     acts = _mapping(req, "activities", 0.0, ACTIVITY_MAX, f"an activity above 0 and at most {ACTIVITY_MAX:g} [unitless]",
                     prefix)
     mols = _mapping(req, "molalities", 0.0, MOLALITY_MAX, f"a molality above 0 and at most {MOLALITY_MAX:g} mol/kg",

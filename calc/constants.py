@@ -34,6 +34,9 @@ def nernst_slope(temp_K):
     Returns:
         slope [V per decade]
 
+    References:
+        Nernst equation, E = E° − (ln10·RT/nF)·log10 Q (IUPAC Green Book, 3rd ed. 2007, §2.13); R and F from CODATA 2018.
+
     >>> round(nernst_slope(298.15), 8)
     0.05915935
     """

@@ -55,6 +55,9 @@ def parse_species(text):
     Returns:
         a Species
 
+    References:
+        Species grammar of DEVELOPERS.md ("Species strings").
+
     >>> parse_species("4 H+(aq)")
     Species(coeff=4.0, formula='H', charge=1, phase='aq')
     >>> parse_species("Hg2^2+(aq)").name
@@ -90,6 +93,9 @@ def formula_atoms(formula):
 
     Returns:
         dict element -> count
+
+    References:
+        Species grammar of DEVELOPERS.md ("Species strings").
 
     >>> formula_atoms("Hg2Cl2") == {'Hg': 2, 'Cl': 2}
     True
@@ -142,6 +148,9 @@ def balance_problems(oxidised, reduced, n):
 
     Returns:
         list of problems (empty when balanced)
+
+    References:
+        Conservation of atoms and charge in a half-reaction (IUPAC Green Book, 3rd ed. 2007, §2.13), common practice.
 
     >>> balance_problems(["O2(g)", "4 H+(aq)"], ["2 H2O(l)"], 4)
     []

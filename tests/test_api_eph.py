@@ -7,7 +7,8 @@ import math
 import pytest
 
 from calc import api
-from calc.potentials import EPH_PH, electrode_entry, eph_entry
+from calc.electrode import electrode_entry
+from calc.eph import EPH_PH, eph_entry
 
 # The lines the couple page draws for its demo inputs (a galvanised tank with a copper pipe, our own
 # scenario): the two water lines at unit pressure and both couples at the page's activities.
@@ -69,6 +70,16 @@ def test_bad_requests_name_the_field(shipped, req, field):
     out = api.call("eph", req)
     assert not out["ok"] and out["error"]["field"] == field, out
     assert out["error"]["message"].startswith(field) and "\n" not in out["error"]["message"]
+
+
+def test_an_unknown_field_lists_the_fields_in_their_order(shipped):
+    # the message as it read before the request reader was shared (calc.requests.read)
+    out = api.call("eph", {"lines": [{"id": "Zn2+/Zn"}], "pH": 7})
+    assert out["error"]["message"] == "pH = 7: expected no such field (eph takes: lines, temp_C, pH_values)"
+    out = api.call("eph", {"lines": [{"id": "Zn2+/Zn", "pH": 7}]})
+    assert out["error"]["message"] == ("lines[0].pH = 7: expected no such field (a line takes: id, activities, "
+                                       "molalities, pressures, ionic_strength, env, composition, model "
+                                       "(temp_C is shared; pH is the axis))")
 
 
 def test_unused_values_and_ph_outside_the_usual_range_are_warned(shipped):

@@ -17,8 +17,11 @@ from hypothesis import strategies as st
 from calc import api, cli
 
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
-ENGINE_MODULES = ["calc.water", "calc.activity", "calc.conditions", "calc.potentials", "calc.refelec",
-                  "calc.derivation"]
+#: every module of the engine (calc), found on disk, apart from its command-line face
+ENGINE_MODULES = sorted(
+    "calc." + os.path.relpath(os.path.join(d, f), os.path.join(ROOT, "calc"))[:-3].replace(os.sep, ".").removesuffix(".__init__")
+    for d, _, files in os.walk(os.path.join(ROOT, "calc")) if "__pycache__" not in d
+    for f in files if f.endswith(".py") and f not in ("cli.py", "clitext.py", "__main__.py"))
 
 
 def run_cli(capsys, *argv):

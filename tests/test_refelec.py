@@ -7,7 +7,7 @@ import pytest
 
 from calc import constants, dataset
 from calc.errors import InputError
-from calc.potentials import standard_potential
+from calc.standard import standard_potential
 from calc.refelec import convert, convert_entry, reference_potential, rhe_potential
 from refdata import reference_bundle
 

@@ -38,7 +38,7 @@ def test_wheel_is_built_by_pip_reproducibly_and_holds_calc_and_the_dataset(bundl
     assert _sha(first) == _sha(tmp_path / "out-2" / name)
     with zipfile.ZipFile(first) as zf:
         names = set(zf.namelist())
-        assert {"calc/api.py", "calc/potentials.py", "calc/joint.py", "calc/dataset.json"} <= names
+        assert {"calc/api.py", "calc/cell.py", "calc/joint.py", "calc/dataset.json"} <= names
         assert not any("__pycache__" in n or n.endswith(".pyc") for n in names)
         assert json.loads(zf.read("calc/dataset.json"))["version"] == bundle["version"]
         wheel_meta = zf.read(f"{hooks.WHEEL_NAME}-{hooks.WHEEL_VERSION}.dist-info/WHEEL").decode()

@@ -1,0 +1,249 @@
+"""Couples (calc.cell): anode, overall reaction, E_cell, ΔG, K, and the E–pH chart carried with the result."""
+
+import itertools
+import json
+
+import pytest
+
+from calc import constants, dataset
+from calc.cell import couple, couple_entry
+from calc.electrode import electrode_entry
+from calc.eph import eph_entry
+from calc.errors import InputError
+from calc.species import balance_problems, parse_species
+from refdata import reference_bundle
+
+SLOPE25 = constants.nernst_slope(298.15)
+
+
+def E(id_, **cond):
+    return electrode_entry({"id": id_, **cond})["potential_V"]
+
+
+# ---------------------------------------------------------------- Daniell cell
+
+def test_daniell_cell_standard(shipped):
+    r = couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu"})
+    # Vanýsek, CRC Handbook 92nd ed. (2011), Table 1: E° = 0.3419 − (−0.7618) = 1.1037 V (≈ 1.10 V)
+    assert r["anode"] == "Zn2+/Zn" and r["cathode"] == "Cu2+/Cu"
+    assert r["standard_cell_potential_V"] == pytest.approx(1.1037, abs=1e-9)
+    assert r["cell_potential_V"] == pytest.approx(1.1037, abs=1e-9)
+    assert r["n_electrons"] == 2
+    assert r["overall_reaction"] == "Cu2+(aq) + Zn(s) → Cu(s) + Zn2+(aq)"
+    # ΔG° = −nFE° = −212.98 kJ/mol; log10 K = 2·1.1037/0.0591594 = 37.31 (computed from the above)
+    assert r["standard_delta_G_kJ_per_mol"] == pytest.approx(-212.98, abs=0.01)
+    assert r["log10_K"] == pytest.approx(37.313, abs=0.001)
+    assert r["equilibrium_constant"] == pytest.approx(10 ** r["log10_K"], rel=1e-12)
+    # both assumed at unit activity, and the user is told which
+    assumed = " ".join(w["message"] for w in r["warnings"] if w["field"] == "activities")
+    assert "Zn2+" in assumed and "Cu2+" in assumed
+
+
+def test_daniell_cell_with_activities(shipped):
+    r = couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "activities": {"Zn2+": 0.1, "Cu2+": 0.001}})
+    # Nernst: E = 1.1037 − (0.05916/2)·log10(0.1/0.001) = 1.0445 V (common practice textbook example)
+    assert r["cell_potential_V"] == pytest.approx(1.0445, abs=5e-5)
+    assert r["delta_G_kJ_per_mol"] == pytest.approx(-2 * constants.FARADAY * r["cell_potential_V"] / 1000)
+    assert r["warnings"] == []
+
+
+# ---------------------------------------------------------------- concentration cells
+
+def test_concentration_cell(shipped):
+    r = couple_entry({"a": "Cu2+/Cu", "b": "Cu2+/Cu", "a_conditions": {"activities": {"Cu2+": 0.001}},
+                      "b_conditions": {"activities": {"Cu2+": 0.1}}})
+    # Nernst, common practice: E = (0.05916/2)·log10(0.1/0.001) = 0.05916 V; the dilute side is the anode
+    assert r["cell_potential_V"] == pytest.approx(SLOPE25, abs=1e-9)
+    assert r["anode_electrode"]["activities"][0]["activity"] == 0.001
+    assert r["standard_cell_potential_V"] == 0.0 and r["log10_K"] == 0.0 and r["equilibrium_constant"] == 1.0
+    assert r["overall_reaction"] == "Cu2+(aq, cathode side) → Cu2+(aq, anode side)"
+
+
+def test_same_electrode_same_conditions_warns(shipped):
+    r = couple_entry({"a": "Zn2+/Zn", "b": "Zn2+/Zn"})
+    assert r["cell_potential_V"] == 0.0
+    assert any("no driving force" in w["message"] for w in r["warnings"])
+
+
+# ---------------------------------------------------------------- couple rules
+
+def test_standard_anode_reversal_sn_pb(shipped):
+    # E°(Sn2+/Sn) = −0.1375 V < E°(Pb2+/Pb) = −0.1262 V (CRC Table 1): Sn is the standard anode;
+    # with a(Pb2+) = 0.001 lead drops by 0.0887 V and becomes the anode (common practice)
+    r = couple_entry({"a": "Sn2+/Sn", "b": "Pb2+/Pb", "activities": {"Pb2+": 0.001, "Sn2+": 1}})
+    assert r["anode"] == "Pb2+/Pb" and r["standard_anode"] == "Sn2+/Sn"
+    assert r["standard_cell_potential_V"] == pytest.approx(-0.1375 - (-0.1262), abs=1e-9)
+    assert r["standard_delta_G_kJ_per_mol"] > 0
+    assert any("reverse" in w["message"] for w in r["warnings"])
+
+
+def test_lcm_and_species_cancelled(shipped):
+    r = couple_entry({"a": "Fe3+/Fe2+", "b": "Fe2+/Fe"})
+    assert r["n_electrons"] == 2
+    assert r["overall_reaction"] == "2 Fe3+(aq) + Fe(s) → 3 Fe2+(aq)"
+    r = couple_entry({"a": "O2/H2O", "b": "Zn2+/Zn", "pH": 7})
+    assert r["n_electrons"] == 4
+    assert r["overall_reaction"] == "O2(g) + 4 H+(aq) + 2 Zn(s) → 2 H2O(l) + 2 Zn2+(aq)"
+    r = couple_entry({"a": "Fe3+/Fe", "b": "Fe3+/Fe2+"})
+    assert r["n_electrons"] == 3
+
+
+def test_equilibrium_constant_overflow_is_null(shipped):
+    r = couple_entry({"a": "Cr2O7^2-/Cr3+", "b": "Li+/Li"})
+    assert r["n_electrons"] == 6
+    assert r["log10_K"] > 300 and r["equilibrium_constant"] is None
+    assert "log10_K" in r["equilibrium_constant_note"]
+    json.dumps(r, allow_nan=False)
+
+
+# ---------------------------------------------------------------- invariants over the whole table
+
+def _swapped_fields(result):
+    """The result with warning fields a and b exchanged (they name the inputs, which were swapped)."""
+    swap = {"a": "b", "b": "a"}
+    return {**result, "warnings": [{**w, "field": swap.get(w["field"], w["field"])} for w in result["warnings"]]}
+
+
+def _without_chart(result):
+    return {k: v for k, v in result.items() if k != "eph"}
+
+
+def _overall_problems(text):
+    """Parse an overall reaction string back and check atoms and charge balance."""
+    left, right = text.split(" → ")
+    lhs = [s for s in left.split(" + ") if s != "(nothing)"]
+    rhs = [s for s in right.split(" + ") if s != "(nothing)"]
+    return balance_problems(lhs, rhs, 0)
+
+
+def test_couple_invariants_over_the_table(shipped):
+    ids = [r["id"] for r in shipped.records("half_reactions")]
+    partners = ["Zn2+/Zn", "O2/H2O", "Fe3+/Fe2+", "Cu2+/Cu"]
+    F = constants.FARADAY
+    for a, b in itertools.product(ids, partners):
+        if a == b:
+            continue
+        req = {"a": a, "b": b, "pH": 6.5, "temp_C": 40}
+        r = couple_entry(req)
+        s = couple_entry({**req, "a": b, "b": a})
+        # swapping a and b changes nothing but the input names, and the order of the two couple
+        # lines (after the two water lines) in the E–pH chart the result carries
+        assert _without_chart(r) == _swapped_fields(_without_chart(s)), (a, b)
+        assert r["eph"]["lines"] == s["eph"]["lines"][:2] + s["eph"]["lines"][:1:-1], (a, b)
+        assert r["anode_potential_V"] <= r["cathode_potential_V"]  # the anode is the lower potential
+        assert r["cell_potential_V"] >= 0 and r["delta_G_kJ_per_mol"] <= 0
+        assert r["delta_G_kJ_per_mol"] == pytest.approx(-r["n_electrons"] * F * r["cell_potential_V"] / 1000)
+        assert _overall_problems(r["overall_reaction"]) == [], (a, b, r["overall_reaction"])
+
+
+def test_free_energy_additivity_of_linked_couples(shipped):
+    # E_cell(A,C) = E_cell(A,B) + E_cell(B,C) for A below B below C: ΔG per electron is additive
+    ids = ["Zn2+/Zn", "Fe2+/Fe", "Ni2+/Ni", "Cu2+/Cu", "Ag+/Ag", "O2/H2O"]
+    for t in (25, 60):
+        for a, b, c in itertools.combinations(ids, 3):
+            ab = couple_entry({"a": a, "b": b, "temp_C": t, "pH": 5})["cell_potential_V"]
+            bc = couple_entry({"a": b, "b": c, "temp_C": t, "pH": 5})["cell_potential_V"]
+            ac = couple_entry({"a": a, "b": c, "temp_C": t, "pH": 5})["cell_potential_V"]
+            pots = sorted([a, b, c], key=lambda i: E(i, temp_C=t, pH=5))
+            if pots == [a, b, c]:
+                assert ac == pytest.approx(ab + bc, abs=1e-12)
+
+
+@pytest.mark.parametrize("req, field", [
+    ({"a": "Zn2+/Zn"}, "b"),
+    ({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "a_conditions": {"temp_C": 30}}, "a_conditions.temp_C"),
+    ({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "b_conditions": 3}, "b_conditions"),
+    ({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "a_conditions": {"activities": {"Zn2+": -1}}}, "a_conditions.activities.Zn2+"),
+    ({"a": "Zn2+/Zn", "b": "Copper"}, "b"),
+])
+def test_couple_rejects_bad_input(shipped, req, field):
+    with pytest.raises(InputError) as exc:
+        couple_entry(req)
+    assert exc.value.field == field
+
+
+def test_couple_function_matches_entry(shipped):
+    r = couple("Zn2+/Zn", "Cu2+/Cu", {"temp_C": 30})
+    assert r["cell_potential_V"] == couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "temp_C": 30})["cell_potential_V"]
+
+
+def test_an_unknown_field_lists_the_fields_in_sorted_order(shipped):
+    # the message as it read before the request reader was shared (calc.requests.read)
+    with pytest.raises(InputError) as exc:
+        couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "c": 1})
+    assert str(exc.value) == ("c = 1: expected no such field (couple takes: a, a_conditions, activities, b, "
+                              "b_conditions, composition, env, ionic_strength, model, molalities, pH, pressures, "
+                              "temp_C)")
+
+
+# ---------------------------------------------------------------- the E–pH chart in the couple's result
+
+def _page_line(shipped, rid, req):
+    """The line the couple page asked ``eph`` for, for one electrode, before the chart came with the
+    result (lineFor in docs/assets/js/calculators.mjs): the resolved id, and the request's activities
+    and pressures of the species of that half-reaction (by name), each only when not empty."""
+    rec = shipped.get("half_reactions", rid)
+    names = {parse_species(t).name for t in rec["oxidised"] + rec["reduced"]}
+    line = {"id": rec["id"]}
+    for key in ("activities", "pressures"):
+        kept = {name: v for name, v in (req.get(key) or {}).items() if name in names}
+        if kept:
+            line[key] = kept
+    return line
+
+
+CHART_REQUESTS = [
+    {"a": "Zn2+/Zn", "b": "Cu2+/Cu"},
+    # activities of both metals and of a species in neither half-reaction (left out of the lines)
+    {"a": "Zn2+/Zn", "b": "Cu2+/Cu", "temp_C": 35, "activities": {"Zn2+": 1e-5, "Cu2+": 1e-6, "Fe2+": 0.1}, "pH": 6.5},
+    # a pH-dependent couple: oxygen in air against iron, ids as typed in lower case
+    {"a": "o2/h2o", "b": "fe2+/fe", "temp_C": 20, "pressures": {"O2": 0.21}, "activities": {"Fe2+": 1e-6}, "pH": 8},
+    # both electrodes pH-dependent, with empty mappings as the page sends them
+    {"a": "H2O/H2", "b": "O2/OH-", "temp_C": 60, "pH": 10, "activities": {}, "pressures": {}},
+]
+
+
+@pytest.mark.parametrize("req", CHART_REQUESTS)
+def test_the_chart_is_what_eph_gives_for_the_lines_the_page_asked_for(shipped, req):
+    lines = [{"id": "H+/H2"}, {"id": "O2/H2O"}, _page_line(shipped, req["a"], req), _page_line(shipped, req["b"], req)]
+    ask = {"lines": lines, **({"temp_C": req["temp_C"]} if "temp_C" in req else {})}
+    r = couple_entry(req)
+    assert r["eph"] == eph_entry(ask)
+    assert r["eph"]["temp_C"] == r["temp_C"] and r["eph"]["pH"] == [float(p) for p in range(15)]
+
+
+def test_the_chart_passes_through_the_couples_own_potentials(shipped):
+    # at the request's pH (8, one of the chart's pH values) each couple line is the electrode's
+    # potential in the result: the same Nernst equation with the same activities
+    r = couple_entry(CHART_REQUESTS[2])
+    o2, fe = r["eph"]["lines"][2:]
+    assert o2["pH_dependent"] and not fe["pH_dependent"]
+    by_id = {r["anode_electrode"]["id"]: r["anode_electrode"], r["cathode_electrode"]["id"]: r["cathode_electrode"]}
+    assert o2["potential_V"][8] == by_id["O2/H2O"]["potential_V"]
+    assert fe["potential_V"][8] == by_id["Fe2+/Fe"]["potential_V"]
+
+
+def test_a_chart_that_cannot_be_drawn_leaves_the_couple_standing():
+    bundle = reference_bundle()
+    bundle["half_reactions"] = [h for h in bundle["half_reactions"] if h["id"] != "O2/H2O"]
+    dataset.set_dataset(bundle)
+    r = couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu"})
+    assert r["anode"] == "Zn2+/Zn" and r["cell_potential_V"] == pytest.approx(1.1037, abs=1e-9)
+    assert set(r["eph"]) == {"error"} and r["eph"]["error"]["field"] == "lines[1].id"
+    assert r["eph"]["error"]["message"].startswith("lines[1].id = 'O2/H2O': expected a known half reaction id")
+    json.dumps(r, allow_nan=False)
+
+
+def test_a_couple_checks_its_temperature_once(shipped, monkeypatch):
+    from calc import conditions, derivation, eph, standard
+
+    calls = []
+
+    def counted(value, field="temp_C"):
+        calls.append(field)
+        return derivation.check_temperature(value, field)
+
+    for module in (conditions, eph, standard):
+        monkeypatch.setattr(module, "check_temperature", counted)
+    couple_entry({"a": "Zn2+/Zn", "b": "O2/H2O", "temp_C": 40, "pH": 7, "b_conditions": {"pressures": {"O2": 0.21}}})
+    assert calls == ["temp_C"]

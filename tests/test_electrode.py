@@ -1,0 +1,193 @@
+"""The potential of one electrode (calc.electrode, calc.conditions): Nernst with the full quotient."""
+
+import json
+import math
+
+import pytest
+
+from calc import constants, water
+from calc.electrode import electrode_entry, nernst
+from calc.errors import InputError
+
+SLOPE25 = constants.nernst_slope(298.15)
+
+
+def E(id_, **cond):
+    return electrode_entry({"id": id_, **cond})["potential_V"]
+
+
+# ---------------------------------------------------------------- concentration cells
+
+def test_concentration_cell_by_electrodes(shipped):
+    # Ag+/Ag, n = 1: ten-fold activity ratio gives one Nernst slope (common practice)
+    assert E("Ag+/Ag", activities={"Ag+": 0.1}) - E("Ag+/Ag", activities={"Ag+": 0.01}) == pytest.approx(SLOPE25, rel=1e-12)
+    # at 60 °C the slope grows with T (REFERENCE-DATA §1: 66.104 mV at 60 °C)
+    d = E("Ag+/Ag", temp_C=60, activities={"Ag+": 0.1}) - E("Ag+/Ag", temp_C=60, activities={"Ag+": 0.01})
+    assert d * 1000 == pytest.approx(66.104, abs=0.001)
+
+
+# ---------------------------------------------------------------- hydrogen and oxygen electrodes
+
+@pytest.mark.parametrize("pH", [0, 1, 4, 7, 10, 14])
+def test_hydrogen_electrode(shipped, pH):
+    # Nernst for 2H+ + 2e- → H2 at p(H2) = 1 bar: E = −0.05916·pH (common practice)
+    assert E("H+/H2", pH=pH) == pytest.approx(-SLOPE25 * pH, abs=1e-12)
+    # the alkaline form H2O/H2 (CRC −0.8277 V) gives the same line within 1 mV
+    # (REFERENCE-DATA §2: −0.05916 × 13.996 = −0.8280)
+    assert E("H2O/H2", pH=pH) == pytest.approx(-SLOPE25 * pH, abs=0.001)
+
+
+@pytest.mark.parametrize("pH", [0, 3, 7, 8.2, 14])
+def test_oxygen_electrode(shipped, pH):
+    # 1.229 − 0.05916·pH at p(O2) = 1 bar (CRC Table 1 E° of O2/H2O; common practice)
+    assert E("O2/H2O", pH=pH) == pytest.approx(1.229 - SLOPE25 * pH, abs=1e-9)
+    # the alkaline form O2/OH- (CRC 0.401 V) agrees within 1 mV (REFERENCE-DATA §2: 1.229 − 0.05916×14 = 0.401)
+    assert E("O2/OH-", pH=pH) == pytest.approx(1.229 - SLOPE25 * pH, abs=0.001)
+
+
+def test_oxygen_in_air_pressure_in_atm(shipped):
+    # p(O2) = 0.21 atm → a = 0.21 × 1.01325 (standard state 1 bar); n = 4
+    e = E("O2/H2O", pH=7, pressures={"O2": 0.21})
+    assert e == pytest.approx(1.229 - SLOPE25 * 7 + SLOPE25 / 4 * math.log10(0.21 * 1.01325), abs=1e-12)
+
+
+def test_water_at_unit_activity_and_hydroxide_from_kw(shipped):
+    r = electrode_entry({"id": "O2/OH-", "pH": 9, "temp_C": 50})
+    acts = {a["species"]: a for a in r["activities"]}
+    assert acts["H2O"]["activity"] == 1.0
+    # a(OH-) = Kw(T)/a(H+), pKw(50 °C) = 13.26 (Bandura & Lvov 2006, from memory)
+    assert acts["OH-"]["activity"] == pytest.approx(10 ** (9 - water.pKw(50)), rel=1e-12)
+    assert water.pKw(50) == pytest.approx(13.26, abs=0.01)
+
+
+# ---------------------------------------------------------------- activities from molality
+
+def test_molality_with_model_and_ionic_strength(shipped):
+    r = electrode_entry({"id": "Zn2+/Zn", "molalities": {"Zn2+": 0.01, "SO4^2-": 0.01}, "model": "davies"})
+    # I = ½(0.01·4 + 0.01·4) = 0.04; Davies γ(z=2) computed the same way as calc.activity
+    A = water.debye_huckel_A(25)
+    g = 10 ** (-A * 4 * (0.2 / 1.2 - 0.3 * 0.04))
+    assert r["potential_V"] == pytest.approx(-0.7618 + SLOPE25 / 2 * math.log10(g * 0.01), abs=1e-12)
+    assert not any(w["field"].startswith("molalities") for w in r["warnings"])
+
+
+def test_missing_counter_ion_warned(shipped):
+    r = electrode_entry({"id": "Zn2+/Zn", "molalities": {"Zn2+": 0.01}})
+    assert any("counter-ions" in w["message"] for w in r["warnings"])
+
+
+def test_environment_ionic_strength(shipped):
+    env = shipped.get("environments", "seawater-flowing")
+    r = electrode_entry({"id": "Zn2+/Zn", "molalities": {"Zn2+": 1e-4}, "env": "seawater-flowing", "model": "davies"})
+    I = env["ionic_strength_mol_per_kg"]
+    A = water.debye_huckel_A(25)
+    g = 10 ** (-A * 4 * (math.sqrt(I) / (1 + math.sqrt(I)) - 0.3 * I))
+    assert r["potential_V"] == pytest.approx(-0.7618 + SLOPE25 / 2 * math.log10(g * 1e-4), abs=1e-12)
+    assert env["ionic_strength_source"] in r["sources"]
+
+
+# ---------------------------------------------------------------- flags of the dataset
+
+def test_hypothetical_flag(shipped):
+    hyp = [r["id"] for r in shipped.records("half_reactions") if r.get("hypothetical")]
+    assert "Ti2+/Ti" in hyp
+    r = electrode_entry({"id": "Ti2+/Ti"})
+    assert r["hypothetical"] is True
+    assert any("hypothetical" in w["message"] for w in r["warnings"])
+
+
+# ---------------------------------------------------------------- invariants over the whole table
+
+def test_every_half_reaction_computes(shipped):
+    for rec in shipped.records("half_reactions"):
+        for t in (0, 25, 100):
+            r = electrode_entry({"id": rec["id"], "temp_C": t, "pH": 7})
+            json.dumps(r, allow_nan=False)
+            assert math.isfinite(r["potential_V"])
+
+
+def test_nernst_function():
+    # E = E° − (0.05916/n)·log10 Q (Nernst 1889)
+    assert nernst(0.0, 1, 1.0, 25.0) == pytest.approx(-SLOPE25, rel=1e-12)
+
+
+# ---------------------------------------------------------------- bad input, each bound
+
+@pytest.mark.parametrize("req, field", [
+    ({"id": "Zn2+/Zn", "activities": {"Zn2+": 0}}, "activities.Zn2+"),
+    ({"id": "Zn2+/Zn", "activities": {"Zn2+": -0.1}}, "activities.Zn2+"),
+    ({"id": "Zn2+/Zn", "activities": {"Zn2+": float("nan")}}, "activities.Zn2+"),
+    ({"id": "Zn2+/Zn", "activities": {"Zn2+": float("inf")}}, "activities.Zn2+"),
+    ({"id": "Zn2+/Zn", "activities": {"Zn2+": "lots"}}, "activities.Zn2+"),
+    ({"id": "Zn2+/Zn", "activities": {"Zn2+": 1e7}}, "activities.Zn2+"),
+    ({"id": "Zn2+/Zn", "activities": [0.1]}, "activities"),
+    ({"id": "Zn2+/Zn", "molalities": {"Zn2+": 0}}, "molalities.Zn2+"),
+    ({"id": "O2/H2O", "pressures": {"O2": 0}}, "pressures.O2"),
+    ({"id": "Zn2+/Zn", "temp_C": -0.01}, "temp_C"),
+    ({"id": "Zn2+/Zn", "temp_C": 100.01}, "temp_C"),
+    ({"id": "H+/H2", "pH": -2.01}, "pH"),
+    ({"id": "H+/H2", "pH": 16.01}, "pH"),
+    ({"id": "H+/H2", "pH": 7, "activities": {"H+": 1e-7}}, "activities.H+"),
+    ({"id": "Zn2+/Zn", "model": "sit"}, "model"),
+    ({"id": "Zn2+/Zn", "ionic_strength": 0.1, "env": "seawater-flowing"}, "env"),
+    ({"id": "Zn2+/Zn", "env": "the moon"}, "env"),
+    ({"id": "Zn2+/Zn", "env": "indoor-controlled"}, "env"),
+    ({"id": "Zn2+/Zn", "composition": {"Na+": -1}}, "composition.Na+"),
+    ({"id": "Zn2+/Zn", "composition": [1]}, "composition"),
+    ({"id": "Zn2+/Zn", "ionic_strength": 6}, "ionic_strength"),
+    ({"id": "Zn2/Zn"}, "id"),
+    ({"id": 12}, "id"),
+    ({}, "id"),
+    ({"id": "Zn2+/Zn", "temperature": 30}, "temperature"),
+])
+def test_electrode_rejects_bad_input(shipped, req, field):
+    with pytest.raises(InputError) as exc:
+        electrode_entry(req)
+    assert exc.value.field == field
+
+
+def test_unknown_id_offers_closest(shipped):
+    with pytest.raises(InputError) as exc:
+        electrode_entry({"id": "Zn2/Zn"})
+    assert "Zn2+/Zn" in str(exc.value)
+
+
+@pytest.mark.parametrize("pH, warned", [(-1, True), (0, False), (14, False), (15, True)])
+def test_ph_warning_outside_0_14(shipped, pH, warned):
+    r = electrode_entry({"id": "H+/H2", "pH": pH})
+    assert any(w["field"] == "pH" for w in r["warnings"]) is warned
+
+
+def test_unused_values_are_reported(shipped):
+    r = electrode_entry({"id": "Zn2+/Zn", "activities": {"Zn2+": 0.1, "Cu2+": 0.1}, "pH": 7})
+    fields = {w["field"] for w in r["warnings"]}
+    assert "activities.Cu2+" in fields and "pH" in fields
+    r = electrode_entry({"id": "Zn2+/Zn", "activities": {"Zn2+": 0.1}, "env": "seawater-flowing"})
+    assert [w["field"] for w in r["warnings"]] == ["env"]
+
+
+def test_water_activity_can_be_given(shipped):
+    # O2/OH- at pH 8 with a(H2O) = 0.98 (seawater, common practice): a(H2O) enters Q on the oxidised
+    # side with power 2 and a(OH-) = Kw·a(H2O)/a(H+) with power 4: net log10 Q changes by 2·log10 0.98
+    base = electrode_entry({"id": "O2/OH-", "pH": 8})
+    wet = electrode_entry({"id": "O2/OH-", "pH": 8, "activities": {"H2O": 0.98}})
+    assert wet["log10_Q"] - base["log10_Q"] == pytest.approx(2 * math.log10(0.98), abs=1e-12)
+    assert wet["warnings"] == base["warnings"]
+
+
+def test_ideal_model_warns_at_real_ionic_strength(shipped):
+    r = electrode_entry({"id": "Zn2+/Zn", "molalities": {"Zn2+": 0.01, "SO4^2-": 0.01}, "model": "ideal"})
+    # ideal is taken as valid to 0.001 mol/kg only; here I = 0.04 mol/kg
+    assert r["potential_V"] == pytest.approx(-0.7618 + SLOPE25 / 2 * math.log10(0.01), abs=1e-12)
+    assert any(w["field"] == "ionic_strength" for w in r["warnings"])
+
+
+def test_an_unknown_field_lists_the_fields_in_sorted_order(shipped):
+    # the message as it read before the request reader was shared (calc.requests.read)
+    with pytest.raises(InputError) as exc:
+        electrode_entry({"id": "Zn2+/Zn", "temperature": 30})
+    assert str(exc.value) == ("temperature = 30: expected no such field (electrode takes: activities, composition, "
+                              "env, id, ionic_strength, model, molalities, pH, pressures, temp_C)")
+    with pytest.raises(InputError) as exc:
+        electrode_entry({"temp_C": 30})
+    assert str(exc.value) == "id = None: expected a half-reaction id such as Zn2+/Zn"
