@@ -23,7 +23,7 @@ ENTRY_POINTS = {
     "convert": "calc.refelec:convert_entry",
     "activity": "calc.activity:activity_entry",
     "joint": "calc.joint:joint_entry",
-    "matrix": "calc.joint:matrix_entry",
+    "matrix": "calc.matrix:matrix_entry",
     "rate": "calc.rate:rate_entry",
     "measured": "calc.fieldcheck:measured_joint_entry",
     "cp": "calc.fieldcheck:cp_reading_entry",

@@ -17,8 +17,12 @@ import math
 from dataclasses import asdict, dataclass, field
 
 from . import constants
+from .bounds import BOUNDS
 from .dataset import current
+from .derivation import Derivation
+from .elements import ATOMIC_WEIGHTS, VALENCES
 from .errors import DataError, InputError
+from .requests import read
 
 #: ASTM G102-89 (R2015) Eq. (1) constant for CR in mm/y with i in µA/cm², ρ in g/cm³ [mm·g/(µA·cm·y)]
 K1_MM = 3.27e-3
@@ -30,28 +34,7 @@ MIN_WT_PCT = 1.0
 HIGH_CURRENT_UA_CM2 = 10000.0
 #: highest current density accepted at all, 1 A/cm² (the bound the data validator uses; common
 #: practice); far above it the rates overflow a double [µA/cm²]
-CURRENT_MAX_UA_CM2 = 1.0e6
-
-#: Standard atomic weights [g/mol]: IUPAC/CIAAW abridged values to five significant figures
-#: (T. Prohaska et al., "Standard atomic weights of the elements 2021 (IUPAC Technical Report)",
-#: Pure Appl. Chem. 94, 573 (2022), Table 2 abridged values) - from memory.
-ATOMIC_WEIGHTS = {
-    "Ag": 107.87, "Al": 26.982, "As": 74.922, "Au": 196.97, "Be": 9.0122, "Bi": 208.98,
-    "C": 12.011, "Cd": 112.41, "Co": 58.933, "Cr": 51.996, "Cu": 63.546, "Fe": 55.845,
-    "In": 114.82, "Mg": 24.305, "Mn": 54.938, "Mo": 95.95, "N": 14.007, "Nb": 92.906,
-    "Ni": 58.693, "P": 30.974, "Pb": 207.2, "Pd": 106.42, "Pt": 195.08, "Rh": 102.91,
-    "S": 32.06, "Sb": 121.76, "Si": 28.085, "Sn": 118.71, "Ta": 180.95, "Ti": 47.867,
-    "V": 50.942, "W": 183.84, "Zn": 65.38, "Zr": 91.224,
-}
-
-#: Valence n_i taken for each element when it dissolves [unitless]: the lowest common oxidation
-#: state in near-neutral aerated water, the convention of ASTM G102 Table 1 (Fe 2, Ni 2, Cr 3,
-#: Mo 3, Cu 2, Zn 2, Al 3) - from memory. Ti 4 and Si 4 (oxide products), Sn 2, Pb 2 stated by us.
-VALENCES = {
-    "Ag": 1, "Al": 3, "Be": 2, "Cd": 2, "Co": 2, "Cr": 3, "Cu": 2, "Fe": 2, "Mg": 2, "Mn": 2,
-    "Mo": 3, "Nb": 3, "Ni": 2, "Pb": 2, "Sb": 3, "Si": 4, "Sn": 2, "Ti": 4, "V": 3, "W": 4,
-    "Zn": 2, "Zr": 4,
-}
+CURRENT_MAX_UA_CM2 = BOUNDS["current_density_uA_per_cm2"].high
 
 #: material families that have no meaningful Faraday rate, with the reason shown to the user
 _NO_DISSOLUTION = {
@@ -61,10 +44,6 @@ _NO_DISSOLUTION = {
     "precious metal": "a noble metal does not dissolve anodically in these waters, it serves as a cathode",
 }
 _NOBLE_WORDS = ("platinum", "gold", "graphite", "rhodium")
-
-
-def _step(title, formula, substituted, result):
-    return {"title": title, "formula": formula, "substituted": substituted, "result": result}
 
 
 def k1_from_faraday(year_days=365.25):
@@ -141,9 +120,9 @@ def equivalent_weight(composition_wt_pct, valences=None, min_wt_pct=MIN_WT_PCT):
     """Equivalent weight of a metal or alloy from its composition (ASTM G102 method).
 
     EW = 1 / Σ (n_i · f_i / W_i); elements below ``min_wt_pct`` are left out (not renormalised),
-    as in G102 Table 1. Valences are those given, else :data:`VALENCES`; a valence of 0 marks an
-    element that is not oxidised (graphitic carbon in cast iron, left out). Atomic weights from
-    :data:`ATOMIC_WEIGHTS`.
+    as in G102 Table 1. Valences are those given, else :data:`calc.elements.VALENCES`; a valence of
+    0 marks an element that is not oxidised (graphitic carbon in cast iron, left out). Atomic
+    weights from :data:`calc.elements.ATOMIC_WEIGHTS`.
 
     Args:
         composition_wt_pct: element symbol -> mass share, one element may be 'balance' [wt %]
@@ -192,13 +171,13 @@ def equivalent_weight(composition_wt_pct, valences=None, min_wt_pct=MIN_WT_PCT):
     if not terms:
         raise InputError("composition_wt_pct", composition_wt_pct, f"at least one element at {min_wt_pct:g} % or more")
     ew = 1.0 / sum(t[4] for t in terms)
-    steps = (_step("Equivalent weight of the alloy (ASTM G102 Eq. 6)",
-                   "EW = 1 / Σ(n_i·f_i/W_i), elements < 1 % left out",
-                   "EW = 1 / (" + " + ".join(parts) + ")"
-                   + (f"; below 1 %, left out: {', '.join(ignored)}" if ignored else "")
-                   + (f"; not oxidised, left out: {', '.join(inert)}" if inert else ""),
-                   f"EW = {ew:.4g} g"),)
-    return EquivalentWeight(ew, tuple(terms), tuple(ignored + inert), total, steps)
+    d = Derivation()
+    d.step("Equivalent weight of the alloy (ASTM G102 Eq. 6)", "EW = 1 / Σ(n_i·f_i/W_i), elements < 1 % left out",
+           "EW = 1 / (" + " + ".join(parts) + ")"
+           + (f"; below 1 %, left out: {', '.join(ignored)}" if ignored else "")
+           + (f"; not oxidised, left out: {', '.join(inert)}" if inert else ""),
+           f"EW = {ew:.4g} g")
+    return EquivalentWeight(ew, tuple(terms), tuple(ignored + inert), total, tuple(d.steps))
 
 
 @dataclass(frozen=True)
@@ -246,13 +225,12 @@ def corrosion_rate(current_density_uA_per_cm2, equivalent_weight_g, density_g_cm
     i, ew, rho = float(current_density_uA_per_cm2), float(equivalent_weight_g), float(density_g_cm3)
     cr = K1_MM * i * ew / rho
     mr = K2_G_M2_D * i * ew
-    steps = (
-        _step("Penetration rate (ASTM G102 Eq. 1)", "CR = K1·i·EW/ρ, K1 = 3.27e-3 mm·g/(µA·cm·y)",
-              f"CR = 3.27e-3 × {i:g} × {ew:.4g} / {rho:g}", f"CR = {cr:.4g} mm/y"),
-        _step("Mass-loss rate (ASTM G102 Eq. 2)", "MR = K2·i·EW, K2 = 8.954e-3 g·cm²/(µA·m²·d)",
-              f"MR = 8.954e-3 × {i:g} × {ew:.4g}", f"MR = {mr:.4g} g/(m²·d)"),
-    )
-    return FaradayRate(i, ew, rho, cr, mr, steps)
+    d = Derivation()
+    d.step("Penetration rate (ASTM G102 Eq. 1)", "CR = K1·i·EW/ρ, K1 = 3.27e-3 mm·g/(µA·cm·y)",
+           f"CR = 3.27e-3 × {i:g} × {ew:.4g} / {rho:g}", f"CR = {cr:.4g} mm/y")
+    d.step("Mass-loss rate (ASTM G102 Eq. 2)", "MR = K2·i·EW, K2 = 8.954e-3 g·cm²/(µA·m²·d)",
+           f"MR = 8.954e-3 × {i:g} × {ew:.4g}", f"MR = {mr:.4g} g/(m²·d)")
+    return FaradayRate(i, ew, rho, cr, mr, tuple(d.steps))
 
 
 def finite(value):
@@ -324,18 +302,13 @@ def material_faraday_data(rec, field_name="material"):
     ew_rec = rec.get("equivalent_weight_g")
     comp = rec.get("composition_wt_pct")
     if ew_rec is None and not comp:
-        words = " ".join(str(rec.get(k) or "") for k in ("family", "name", "id")).lower()
-        reason = rec.get("equivalent_weight_note") or _NO_DISSOLUTION.get(str(rec.get("family") or "").lower())
-        if reason is None and any(w in words for w in _NOBLE_WORDS):
-            reason = f"{rec.get('name', mid)} does not dissolve anodically in these waters, it serves as a cathode"
-        if reason is None:
-            reason = "the dataset gives neither an equivalent weight nor a composition for it"
-        raise InputError(field_name, mid, "a material with an equivalent weight for a Faraday (ASTM G102) rate", reason)
+        raise InputError(field_name, mid, "a material with an equivalent weight for a Faraday (ASTM G102) rate",
+                         _no_dissolution_reason(rec))
     rho = rec.get("density_g_cm3")
     if rho is None:
         raise InputError(field_name, mid, "a material with a density for a Faraday (ASTM G102) rate",
                          "the dataset gives no density for it")
-    steps, warnings, sources = [], [], []
+    d = Derivation()
     computed = None
     if comp:
         try:
@@ -344,33 +317,33 @@ def material_faraday_data(rec, field_name="material"):
             if ew_rec is None:
                 raise
             # the composition is only a cross-check when the dataset gives the EW itself
-            warnings.append({"field": field_name, "message":
-                             f"{mid}: the EW could not be recomputed from its composition; the dataset value is used"})
+            d.warn(field_name, f"{mid}: the EW could not be recomputed from its composition; the dataset value is used")
     if ew_rec is not None:
-        ew, basis = float(ew_rec), "dataset"
-        if rec.get("equivalent_weight_source"):
-            sources.append(rec["equivalent_weight_source"])
-        steps.append(_step("Equivalent weight from the dataset", "EW (ASTM G102 Table 1 or computed by its method)",
-                           f"{mid}: EW = {ew:g} g", f"EW = {ew:g} g"))
+        ew, basis, sources = float(ew_rec), "dataset", [rec.get("equivalent_weight_source")]
+        d.step("Equivalent weight from the dataset", "EW (ASTM G102 Table 1 or computed by its method)",
+               f"{mid}: EW = {ew:g} g", f"EW = {ew:g} g")
         if computed is not None:
-            steps.extend(computed.steps)
+            d.steps.extend(computed.steps)
             dev = abs(computed.value_g - ew) / ew
             if dev > 0.03:
-                warnings.append({"field": field_name, "message":
-                                 f"{mid}: the dataset's EW {ew:g} g differs by {dev * 100:.0f} % from the EW "
-                                 f"{computed.value_g:.4g} g computed from its nominal composition; "
-                                 "the dataset value is used"})
+                d.warn(field_name, f"{mid}: the dataset's EW {ew:g} g differs by {dev * 100:.0f} % from the EW "
+                                   f"{computed.value_g:.4g} g computed from its nominal composition; "
+                                   "the dataset value is used")
     else:
-        ew, basis = computed.value_g, "composition"
-        steps.extend(computed.steps)
-        if rec.get("composition_source"):
-            sources.append(rec["composition_source"])
-    if rec.get("density_source"):
-        sources.append(rec["density_source"])
-    return MaterialFaradayData(mid, ew, float(rho), basis, tuple(sources), tuple(steps), tuple(warnings))
+        ew, basis, sources = computed.value_g, "composition", [rec.get("composition_source")]
+        d.steps.extend(computed.steps)
+    sources = tuple(s for s in sources + [rec.get("density_source")] if s)
+    return MaterialFaradayData(mid, ew, float(rho), basis, sources, tuple(d.steps), tuple(d.warnings))
 
 
-_RATE_KEYS = ("material", "current_density_uA_per_cm2")
+def _no_dissolution_reason(rec):
+    """Why a material without an equivalent weight or a composition has no Faraday rate."""
+    words = " ".join(str(rec.get(k) or "") for k in ("family", "name", "id")).lower()
+    reason = rec.get("equivalent_weight_note") or _NO_DISSOLUTION.get(str(rec.get("family") or "").lower())
+    if reason is None and any(w in words for w in _NOBLE_WORDS):
+        reason = (f"{rec.get('name', rec.get('id', '?'))} does not dissolve anodically in these waters, "
+                  "it serves as a cathode")
+    return reason or "the dataset gives neither an equivalent weight nor a composition for it"
 
 
 def rate_entry(request):
@@ -390,20 +363,12 @@ def rate_entry(request):
     >>> round(r["penetration_mm_per_year"] * 1000, 1)   # µm/y
     11.6
     """
-    if not isinstance(request, dict):
-        raise InputError("request", type(request).__name__, "a JSON object")
-    unknown = sorted(set(request) - set(_RATE_KEYS))
-    if unknown:
-        raise InputError(unknown[0], request[unknown[0]], "one of the fields " + ", ".join(_RATE_KEYS))
-    if "material" not in request:
-        raise InputError("material", None, "a material id, alias or UNS number")
-    if "current_density_uA_per_cm2" not in request:
-        raise InputError("current_density_uA_per_cm2", None, "a current density of 0 or more in µA/cm²")
-    i = _number("current_density_uA_per_cm2", request["current_density_uA_per_cm2"],
-                f"a current density from 0 to {CURRENT_MAX_UA_CM2:g} µA/cm²", low=0.0)
+    read(request, "rate", {"material": "a material id, alias or UNS number",
+                           "current_density_uA_per_cm2": "a current density of 0 or more in µA/cm²"})
+    allowed = f"a current density from 0 to {CURRENT_MAX_UA_CM2:g} µA/cm²"
+    i = _number("current_density_uA_per_cm2", request["current_density_uA_per_cm2"], allowed, low=0.0)
     if i > CURRENT_MAX_UA_CM2:
-        raise InputError("current_density_uA_per_cm2", i, f"a current density from 0 to {CURRENT_MAX_UA_CM2:g} µA/cm²",
-                         "1 A/cm²: no corrosion cell in water comes near it")
+        raise InputError("current_density_uA_per_cm2", i, allowed, "1 A/cm²: no corrosion cell in water comes near it")
     ds = current()
     rec = ds.get("materials", request["material"], field="material")
     fd = material_faraday_data(rec)

@@ -1,8 +1,23 @@
-"""Galvanic series positions and the verdict tiers of a pair of metals.
+"""Galvanic series positions, the comparison of two of them, and the verdict tiers of a pair.
 
-The tier rule is written here once; the joint judgement (:mod:`calc.joint`), the matrix and the
-measured joint (site readings) all call :func:`tier_for`.
+The environment record fixes the basis of comparison:
+
+- ``galvanic-series``: steady corrosion potentials measured in one electrolyte, as ranges
+  [active end, noble end] in V vs SCE (ASTM G82-98 (R2014) Fig. 1, reproducing F. L. LaQue,
+  *Marine Corrosion: Causes and Prevention*, 1975, flowing seawater). The nominal potential of
+  a material is the mid-point of its range; the more negative one is the anode. A galvanic
+  series is specific to the electrolyte it was measured in (ASTM G82 §5).
+- ``anodic-index``: the legacy military/industry anodic-index table (0 V gold to 1.85 V
+  beryllium), with allowable differences by severity: harsh 0.15 V, normal 0.25 V, controlled
+  0.50 V. The larger index is the anode.
+
+The tier rule is written here once (:func:`tier_for`): the joint, the matrix, the alternatives
+and the measured joint all call it.
 """
+
+from dataclasses import dataclass
+
+from .errors import DataError, InputError
 
 #: verdict tiers, best first (our own names)
 TIERS = ("matched", "compatible", "guarded", "unsuited")
@@ -15,9 +30,10 @@ TIER_MEANING = {
     "unsuited": ("the difference exceeds what this environment allows: the anode will corrode faster "
                  "where the metals meet; do not join them bare"),
 }
+#: tier -> its place in :data:`TIERS` (0 best)
+TIER_RANK = {t: i for i, t in enumerate(TIERS)}
 #: tolerance on the limit comparison, so 0.65 - 0.50 counts as 0.15 [V]
 EPS_V = 1e-9
-
 
 def midpoint(range_V):
     """Nominal potential of a published range: its mid-point, or None when it is not a pair.
@@ -78,3 +94,304 @@ def tier_for(delta_E_V, worst_V, allowable_V, negligible_V=None, state_fail=Fals
     if negligible_V is not None and delta_E_V <= negligible_V + EPS_V:
         return "matched"
     return "compatible"
+
+
+# --------------------------------------------------------------------------------------------
+# basis of comparison
+
+
+@dataclass(frozen=True)
+class Basis:
+    """How an environment compares materials, and its limits."""
+
+    kind: str  # galvanic-series | anodic-index
+    env_id: str
+    env_name: str
+    series: str  # electrolyte the series was measured in ('' for anodic index)
+    value_field: str  # material field holding the value
+    source_field: str
+    confidence_field: str
+    allowable_V: float
+    allowable_source: str
+    negligible_V: float  # or None
+    severity: str  # anodic-index severity, or ''
+    immersed: bool
+    description: str
+    series_name: str = ""  # plain name of the series' electrolyte ('' for anodic index)
+
+
+def _immersed(env):
+    """An environment is an immersed electrolyte when it says so or carries an ionic strength."""
+    if "immersed" in env and env["immersed"] is not None:
+        return bool(env["immersed"])
+    if env.get("exposure") in ("immersed", "atmospheric"):
+        return env["exposure"] == "immersed"
+    return env.get("ionic_strength_mol_per_kg") is not None
+
+
+def basis_of(env, ds=None):
+    """The basis of comparison and the limits of an environment record.
+
+    Args:
+        env: an environment record of the dataset [unitless]
+        ds: the dataset, to name the electrolyte a galvanic series was measured in; None names it by id [unitless]
+
+    Returns:
+        a :class:`Basis` (allowable and negligible differences in [V])
+
+    References:
+        ASTM G82-98 (R2014) §5 (a galvanic series belongs to its electrolyte); legacy anodic-index
+        table (harsh 0.15 V, normal 0.25 V, controlled 0.50 V).
+
+    >>> b = basis_of({"id": "demo", "name": "Demo", "basis": "anodic-index", "severity": "harsh",
+    ...               "allowable_V": 0.15, "allowable_source": "x"})
+    >>> (b.kind, b.value_field, b.allowable_V)
+    ('anodic-index', 'anodic_index_V', 0.15)
+    >>> from calc.dataset import current
+    >>> basis_of(current().get("environments", "seawater-quiescent"), current()).series
+    'seawater-flowing'
+    """
+    kind = env.get("basis")
+    eid = env.get("id", "?")
+    if kind not in ("galvanic-series", "anodic-index"):
+        raise DataError(f"environments:{eid}:basis: {kind!r} is not galvanic-series or anodic-index")
+    allow = env.get("allowable_V")
+    if isinstance(allow, bool) or not isinstance(allow, (int, float)) or not allow > 0:
+        raise DataError(f"environments:{eid}:allowable_V: {allow!r} is not a positive number")
+    neg = env.get("negligible_V")
+    neg = float(neg) if isinstance(neg, (int, float)) and not isinstance(neg, bool) else None
+    limits = (float(allow), env.get("allowable_source", ""), neg, env.get("severity") or "", _immersed(env))
+    name = env.get("name", eid)
+    if kind == "galvanic-series":
+        series = env.get("series") or eid
+        series_name = series
+        if ds is not None:
+            try:
+                series_name = ds.get("environments", series).get("name", series)
+            except InputError:
+                pass
+        prefix = str(series).split("-")[0].replace(" ", "_").lower()  # 'seawater-flowing' -> 'seawater'
+        desc = (f"galvanic series measured in {series_name}: steady corrosion potentials as ranges "
+                "in V vs SCE; "
+                "the mid-point of a range is the nominal potential and the more negative metal is the anode")
+        return Basis(kind, eid, name, series, f"{prefix}_range_V_SCE", f"{prefix}_source", f"{prefix}_confidence",
+                     *limits, desc, series_name)
+    desc = ("anodic index (legacy military/industry table): one value per metal group in V, 0 for gold; "
+            "the larger index is the anode; the allowable difference depends on the severity of exposure")
+    return Basis(kind, eid, name, "", "anodic_index_V", "anodic_index_source", "anodic_index_confidence",
+                 *limits, desc)
+
+
+# --------------------------------------------------------------------------------------------
+# positions
+
+
+@dataclass(frozen=True)
+class Position:
+    """Where a material sits on a basis. ``low``/``high``/``nominal`` are in 'more noble = higher'
+    order (V vs SCE for a galvanic series, minus the anodic index for the index basis)."""
+
+    material_id: str
+    low: float
+    high: float
+    nominal: float
+    source: str
+    confidence: str
+
+
+def position(rec, basis):
+    """Where a material sits on a basis, or None when the dataset has no value for it.
+
+    Args:
+        rec: a material record [unitless]
+        basis: the :class:`Basis` of the environment [unitless]
+
+    Returns:
+        a :class:`Position` (potentials in [V vs SCE], or minus the anodic index in [V]), or None
+
+    References:
+        ASTM G82-98 (R2014) Fig. 1 (ranges); legacy anodic-index table.
+
+    >>> b = basis_of({"id": "sw", "basis": "galvanic-series", "series": "seawater-flowing",
+    ...               "allowable_V": 0.25})
+    >>> position({"id": "demo-steel", "seawater_range_V_SCE": [-0.72, -0.60]}, b).nominal
+    -0.66
+    """
+    raw = rec.get(basis.value_field)
+    if raw is None:
+        return None
+    src = rec.get(basis.source_field) or rec.get("source") or ""
+    conf = rec.get(basis.confidence_field) or rec.get("confidence") or ""
+    if basis.kind == "galvanic-series":
+        if (not isinstance(raw, (list, tuple)) or len(raw) != 2
+                or not all(isinstance(x, (int, float)) and not isinstance(x, bool) for x in raw)):
+            raise DataError(f"materials:{rec.get('id')}:{basis.value_field}: {raw!r} is not a [low, high] pair")
+        lo, hi = float(min(raw)), float(max(raw))
+        return Position(rec["id"], lo, hi, midpoint((lo, hi)), src, conf)
+    if isinstance(raw, bool) or not isinstance(raw, (int, float)):
+        raise DataError(f"materials:{rec.get('id')}:{basis.value_field}: {raw!r} is not a number")
+    e = -float(raw)
+    return Position(rec["id"], e, e, e, src, conf)
+
+
+def material_on(ds, name, field, basis):
+    """The record of a named material that has a position on the basis, or an InputError saying why not.
+
+    Args:
+        ds: the dataset (:func:`calc.dataset.current`) [unitless]
+        name: material id, alias or UNS number as given [unitless]
+        field: the request field, for the message [unitless]
+        basis: the environment's :class:`Basis` [unitless]
+
+    Returns:
+        the material record
+
+    References:
+        ASTM G82-98 (R2014) Fig. 1 (the materials of the series); legacy anodic-index table.
+
+    >>> from calc.dataset import current
+    >>> ds = current()
+    >>> material_on(ds, "mild steel", "a", basis_of(ds.get("environments", "seawater-flowing"), ds))["id"]
+    'carbon-steel'
+    """
+    if name is None:
+        raise InputError(field, None, "a material id, alias or UNS number")
+    rec = ds.get("materials", name, field=field)
+    if position(rec, basis) is None:
+        what = (f"a value in the galvanic series measured in {basis.series}" if basis.kind == "galvanic-series"
+                else "an anodic index")
+        raise InputError(field, name, f"a material with {what} (the basis of {basis.env_id})",
+                         f"{rec['id']} has none in the dataset")
+    return rec
+
+
+def states(ds, rec, basis):
+    """The material's own position and that of its other passive/active state, where known.
+
+    Args:
+        ds: the dataset (:func:`calc.dataset.current`) [unitless]
+        rec: a material record with a position on the basis [unitless]
+        basis: the environment's :class:`Basis` [unitless]
+
+    Returns:
+        a list of (record, :class:`Position`), the material's own state first (potentials in [V])
+
+    References:
+        ASTM G82-98 (R2014) Fig. 1 (active and passive ranges of stainless steels and nickel alloys).
+
+    >>> from calc.dataset import current
+    >>> ds = current()
+    >>> b = basis_of(ds.get("environments", "seawater-flowing"), ds)
+    >>> [r["id"] for r, _ in states(ds, ds.get("materials", "316"), b)]
+    ['stainless-316-passive', 'stainless-316-active']
+    """
+    out = [(rec, position(rec, basis))]
+    other_id = rec.get("other_state")
+    if other_id:
+        try:
+            other = ds.get("materials", other_id)
+        except InputError:
+            raise DataError(f"materials:{rec.get('id')}:other_state: unknown material {other_id!r}") from None
+        op = position(other, basis)
+        if op is not None:
+            out.append((other, op))
+    return out
+
+
+# --------------------------------------------------------------------------------------------
+# comparing two positions
+
+
+@dataclass(frozen=True)
+class Pairing:
+    """Two positions compared: anode, cathode, differences and tier."""
+
+    a: str
+    b: str
+    anode: str  # None when the nominal potentials are equal
+    cathode: str
+    delta_E_V: float
+    best_V: float
+    worst_V: float
+    tier: str
+
+    def to_dict(self):
+        """Plain data for JSON."""
+        return {"a": self.a, "b": self.b, "anode": self.anode, "cathode": self.cathode,
+                "delta_E_V": round(self.delta_E_V, 4),
+                "delta_E_range_V": [round(self.best_V, 4), round(self.worst_V, 4)], "verdict": self.tier}
+
+
+def compare(p, q, basis):
+    """Compare two positions on one basis.
+
+    Args:
+        p: position of the first material [V]
+        q: position of the second material [V]
+        basis: the environment's :class:`Basis` [unitless]
+
+    Returns:
+        a :class:`Pairing` (differences in [V])
+
+    References:
+        ASTM G82-98 (R2014) §6: the more active metal of a couple is the anode.
+
+    >>> b = basis_of({"id": "sw", "basis": "galvanic-series", "allowable_V": 0.25, "negligible_V": 0.05})
+    >>> steel = Position("demo-steel", -0.72, -0.60, -0.66, "", "")
+    >>> ss = Position("demo-ss", -0.10, 0.0, -0.05, "", "")
+    >>> c = compare(steel, ss, b)
+    >>> (c.anode, round(c.delta_E_V, 3), round(c.best_V, 3), round(c.worst_V, 3), c.tier)
+    ('demo-steel', 0.61, 0.5, 0.72, 'unsuited')
+    """
+    d = round(abs(p.nominal - q.nominal), 9)
+    best = round(max(0.0, max(p.low, q.low) - min(p.high, q.high)), 9)
+    worst = round(max(p.high - q.low, q.high - p.low), 9)
+    if d <= EPS_V:
+        anode = cathode = None
+    elif p.nominal < q.nominal:
+        anode, cathode = p.material_id, q.material_id
+    else:
+        anode, cathode = q.material_id, p.material_id
+    return Pairing(p.material_id, q.material_id, anode, cathode, d, best, worst,
+                   tier_for(d, worst, basis.allowable_V, basis.negligible_V))
+
+
+@dataclass(frozen=True)
+class Judgement:
+    """A pair judged in every passive/active state of its parts."""
+
+    primary: Pairing  # the parts as named
+    combos: tuple  # every state combination, the primary first
+    worst: Pairing  # the worst combination
+    tier: str  # the verdict after the state check
+    state_demoted: bool  # lowered to guarded because another state fails
+
+
+def judge_pair(ds, rec_a, rec_b, basis):
+    """Judge two materials in each of their states: lowered to guarded when another state fails.
+
+    Args:
+        ds: the dataset (:func:`calc.dataset.current`) [unitless]
+        rec_a: first material record, with a position on the basis [unitless]
+        rec_b: second material record, with a position on the basis [unitless]
+        basis: the environment's :class:`Basis` [unitless]
+
+    Returns:
+        a :class:`Judgement` (differences in [V])
+
+    References:
+        ASTM G82-98 (R2014) Fig. 1 and §6 (active and passive ranges; the more active metal is the anode).
+
+    >>> from calc.dataset import current
+    >>> ds = current()
+    >>> b = basis_of(ds.get("environments", "seawater-flowing"), ds)
+    >>> j = judge_pair(ds, ds.get("materials", "titanium"), ds.get("materials", "316"), b)
+    >>> (j.primary.tier, j.tier, j.state_demoted, j.worst.b)
+    ('compatible', 'guarded', True, 'stainless-316-active')
+    """
+    combos = tuple(compare(pa, pb, basis) for _, pa in states(ds, rec_a, basis) for _, pb in states(ds, rec_b, basis))
+    primary = combos[0]
+    state_fail = any(TIER_RANK[c.tier] >= TIER_RANK["guarded"] for c in combos[1:])
+    tier = tier_for(primary.delta_E_V, primary.worst_V, basis.allowable_V, basis.negligible_V, state_fail)
+    worst = max(combos, key=lambda c: (TIER_RANK[c.tier], c.delta_E_V))
+    return Judgement(primary, combos, worst, tier, state_fail and TIER_RANK[primary.tier] < TIER_RANK["guarded"])

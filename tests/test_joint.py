@@ -1,48 +1,27 @@
-"""Joints and pair tables (calc.joint), on the shipped dataset."""
+"""The judgement of one joint (calc.joint), on the shipped dataset."""
 
-import csv
 import inspect
-import io
 import json
-import os
 import re
-import sys
-import time
 
 import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
-if ROOT not in sys.path:  # run from anywhere without installing the package
-    sys.path.insert(0, ROOT)
-
-from calc import api  # noqa: E402
-from calc import joint as J  # noqa: E402
-from calc import rate as g102  # noqa: E402
-from calc.dataset import current  # noqa: E402
-from calc.errors import InputError  # noqa: E402
-
-SEA = "seawater-flowing"
+from calc import advice as A
+from calc import api
+from calc import joint as J
+from calc import matrix as M
+from calc import rate as g102
+from calc import series as S
+from calc.dataset import current
+from calc.errors import InputError
+from jointkit import ENVS, NAMES, SEA, env_with
 
 
 @pytest.fixture(scope="module")
 def ds():
     return current()
-
-
-def mid(ds, name):
-    """Mid-point of a material's flowing-seawater range, read straight from the data [V vs SCE]."""
-    lo, hi = ds.get("materials", name)["seawater_range_V_SCE"]
-    return (lo + hi) / 2
-
-
-def env_with(ds, **match):
-    """The first environment whose fields match (so the test does not hard-code ids)."""
-    for e in ds.records("environments"):
-        if all(e.get(k) == v for k, v in match.items()):
-            return e["id"]
-    raise AssertionError(f"no environment with {match}")
 
 
 # ---------------------------------------------------------------- lookups
@@ -98,21 +77,6 @@ def test_seawater_series_order(ds, active, noble):
     assert r["warnings"] == [] or all("recalled" in w["message"] for w in r["warnings"])
 
 
-def test_every_pair_anode_is_the_lower_potential(ds):
-    # Invariant over the whole table: the anode of every couple has the more negative mid-point
-    m = J.matrix_entry({"env": SEA})
-    ids = m["materials"]
-    mids = {i: mid(ds, i) for i in ids}
-    assert m["pair_fields"] == ["a", "b", "delta_E_V", "verdict", "anode"]
-    for i, j, delta, verdict, anode in m["pairs"]:
-        a, b = ids[i], ids[j]
-        if abs(mids[a] - mids[b]) < 1e-9:
-            assert anode is None
-        else:
-            assert ids[anode] == (a if mids[a] < mids[b] else b)
-            assert delta == pytest.approx(abs(mids[a] - mids[b]), abs=1e-4)
-
-
 def test_carbon_steel_on_passive_316_in_seawater_fails(ds):
     # ASTM G82-98 (R2014) Fig. 1 (after LaQue 1975): mild steel -0.60 to -0.72 V SCE, 316 passive 0.00 to
     # -0.10 V SCE: steel is the anode, ΔE of the mid-points 0.61 V, far above the 0.25 V rule of thumb
@@ -142,7 +106,7 @@ def test_both_dual_state_parts_give_four_combinations(ds):
     pairs = {(s["a"], s["b"]) for s in r["states"]}
     assert len(pairs) == 4
     assert r["states"][0]["a"] == r["a"] and r["states"][0]["b"] == r["b"]
-    worst = max(r["states"], key=lambda s: (J.TIERS.index(s["verdict"]), s["delta_E_V"]))
+    worst = max(r["states"], key=lambda s: (S.TIERS.index(s["verdict"]), s["delta_E_V"]))
     assert r["worst_state"] == worst
 
 
@@ -161,15 +125,6 @@ def test_series_used_outside_its_electrolyte_warns(ds):
     assert any("ASTM G82" in w["message"] and w["field"] == "env" for w in r["warnings"])
     r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA})
     assert not any("ASTM G82" in w["message"] for w in r["warnings"])
-
-
-def test_anodic_index_basis_for_an_immersed_electrolyte_warns():
-    # ASTM G82 §5 and the legacy table's scope (equipment in air): an immersed electrolyte needs a series
-    basis = J.basis_of({"id": "demo-immersed", "name": "Demo tank", "basis": "anodic-index", "severity": "harsh",
-                        "allowable_V": 0.15, "ionic_strength_mol_per_kg": 0.1})
-    assert basis.immersed
-    warnings = J._basis_warnings(basis, {}, current())
-    assert len(warnings) == 1 and "immersed" in warnings[0]["message"]
 
 
 # ---------------------------------------------------------------- anodic-index limits
@@ -217,17 +172,6 @@ def test_anodic_index_controlled_boundary(ds):
     assert J.joint_entry({"a": "gold", "b": "chrome plate", "env": controlled})["passes"] is False
 
 
-@pytest.mark.parametrize("limit", [0.15, 0.25, 0.50])
-def test_tier_boundaries(limit):
-    # legacy anodic-index table limits 0.15 / 0.25 / 0.50 V, inclusive; float noise (0.65 - 0.50) must pass
-    assert J.tier_for(limit, limit, limit) == "compatible"
-    assert J.tier_for(0.65 - 0.50, 0.65 - 0.50, 0.15) == "compatible"
-    assert J.tier_for(limit + 0.001, limit + 0.001, limit) == "unsuited"
-    assert J.tier_for(limit - 0.01, limit + 0.01, limit) == "guarded"
-    assert J.tier_for(0.05, 0.05, limit, 0.05) == "matched"
-    assert J.tier_for(0.051, 0.051, limit, 0.05) == "compatible"
-
-
 # ---------------------------------------------------------------- area ratio and rate
 
 
@@ -266,8 +210,8 @@ def test_no_rate_for_an_anode_without_equivalent_weight(ds):
     # range overlaps graphite's, so pick the pair where graphite comes out as the anode, if any
     graphite = ds.get("materials", "graphite")
     assert graphite.get("equivalent_weight_g") is None
-    basis = J.basis_of(ds.get("environments", SEA))
-    fake = J.Pairing("graphite", "x", "graphite", "x", 0.3, 0.2, 0.4, "unsuited")
+    basis = S.basis_of(ds.get("environments", SEA))
+    fake = S.Pairing("graphite", "x", "graphite", "x", 0.3, 0.2, 0.4, "unsuited")
     rate, reason = J._rate(ds, ds.get("environments", SEA), basis, fake, 1.0,
                            {"graphite": "Graphite", "x": "x"}, {"graphite": graphite})
     assert rate is None and "Graphite" in reason
@@ -292,78 +236,7 @@ def test_area_ratio_extremes_warn(value, warns):
     assert any(w["field"] == "area_ratio" for w in r["warnings"]) is warns
 
 
-# ---------------------------------------------------------------- advice
-
-
-def test_mitigations_for_a_failing_immersed_joint():
-    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA, "area_ratio": 20})
-    ids = [m["id"] for m in r["mitigations"]]
-    assert {"isolate", "coat-cathode", "noble-fastener", "cathodic-protection"} <= set(ids)
-    coat = next(m for m in r["mitigations"] if m["id"] == "coat-cathode")
-    assert "only the anode" in coat["text"]  # the caution: coating only the anode concentrates the attack
-    assert all(set(m) == {"id", "text", "reason"} and m["reason"] for m in r["mitigations"])
-
-
-def test_no_cathodic_protection_advice_in_air(ds):
-    harsh = env_with(ds, basis="anodic-index", severity="harsh")
-    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": harsh})
-    assert r["verdict"] == "unsuited"
-    ids = [m["id"] for m in r["mitigations"]]
-    assert "cathodic-protection" not in ids and "seal" in ids and "isolate" in ids
-
-
-def test_alternatives_pass_against_the_kept_partner(ds):
-    r = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA})
-    assert [x["replace"] for x in r["alternatives"]] == [r["a"], r["b"]]
-    for alt in r["alternatives"]:
-        opts = alt["options"]
-        assert 0 < len(opts) <= J.N_ALTERNATIVES
-        keys = [(J.TIERS.index(o["verdict"]), -o["margin_V"]) for o in opts]
-        assert keys == sorted(keys)  # best tier first, then by margin
-        for o in opts:
-            assert o["verdict"] != "unsuited" and o["margin_V"] >= 0
-            assert o["material"] not in (r["a"], r["b"])
-            assert ds.get("materials", o["material"]).get("state") != "active"
-            again = J.joint_entry({"a": o["material"], "b": alt["keep"], "env": SEA})
-            assert again["verdict"] == o["verdict"] and again["delta_E_V"] == o["delta_E_V"]
-
-
-def test_remembered_alternatives_equal_fresh_ones_and_follow_the_data(ds):
-    """The ranked alternatives are remembered per dataset (they do not depend on the area ratio);
-    a remembered answer equals a fresh one, and other data gives other alternatives."""
-    from calc import dataset as D
-
-    req = {"a": "aluminium 5083", "b": "316", "env": SEA, "area_ratio": 0.3}
-    J._ALTERNATIVES_CACHE.clear()
-    fresh = J.joint_entry(dict(req))
-    for ar in (0.1, 2.0, 0.3):  # filled, then used
-        again = J.joint_entry(dict(req, area_ratio=ar))
-        assert again["alternatives"] == fresh["alternatives"]
-    assert J.joint_entry(dict(req)) == fresh
-    # a caller changing its result does not change the next one
-    fresh["alternatives"][0]["options"][0]["margin_V"] = -99.0
-    assert J.joint_entry(dict(req))["alternatives"][0]["options"][0]["margin_V"] != -99.0
-    # the same request against other data: the best alternative of the first list made unsuited
-    best = J.joint_entry(dict(req))["alternatives"][0]["options"][0]["material"]
-    bundle = json.loads(json.dumps(D.current().bundle))
-    for m in bundle["materials"]:
-        if m["id"] == best:
-            m["seawater_range_V_SCE"] = [-1.60, -1.55]
-    old = D._current
-    try:
-        D.set_dataset(bundle)
-        other = J.joint_entry(dict(req))["alternatives"][0]["options"]
-        assert best not in [o["material"] for o in other]
-    finally:
-        D._current = old
-
-
-def test_cautions_defer_to_standards_and_professionals():
-    r = J.joint_entry({"a": "zinc", "b": "copper", "env": SEA})
-    text = " ".join(r["cautions"]).lower()
-    assert "screening" in text and "qualified corrosion professional" in text
-    for word in ("crevices", "flow", "temperature", "biofilm", "coatings", "geometry", "potable", "pressure"):
-        assert word in text
+# ---------------------------------------------------------------- the result
 
 
 def test_result_shape_and_json(ds):
@@ -374,7 +247,7 @@ def test_result_shape_and_json(ds):
         assert key in r, key
     assert r["basis"] == "galvanic-series" and r["basis_description"] and r["series"] == SEA
     assert r["basis_source"] == ds.get("materials", "zinc")["seawater_source"]
-    assert r["verdict"] in J.TIERS and r["verdict_text"].endswith(".")
+    assert r["verdict"] in S.TIERS and r["verdict_text"].endswith(".")
     assert all(set(s) == {"title", "formula", "substituted", "result"} for s in r["steps"])
     assert r["data_version"] == ds.version
     for sid in r["sources"]:
@@ -388,108 +261,19 @@ def test_same_material_is_no_couple():
     assert r["verdict"] in ("matched", "compatible")
 
 
-# ---------------------------------------------------------------- the pair table
-
-
-def test_matrix_defaults_to_every_material_with_data(ds):
-    for env in (SEA, env_with(ds, basis="anodic-index", severity="harsh")):
-        m = J.matrix_entry({"env": env})
-        field = "seawater_range_V_SCE" if m["basis"] == "galvanic-series" else "anodic_index_V"
-        expected = [r["id"] for r in ds.records("materials") if r.get(field) is not None]
-        assert m["materials"] == expected
-        n = len(expected)
-        # every pair once, a before b in the order of the materials; a material with itself is no pair
-        assert [(p[0], p[1]) for p in m["pairs"]] == [(i, j) for i in range(n) for j in range(i + 1, n)]
-        assert all(p[4] in (None, p[0], p[1]) and p[3] in J.TIERS for p in m["pairs"])
-        assert sum(m["counts"].values()) == len(m["pairs"])
-        assert "csv" not in m  # made only when asked for
-
-
-def test_matrix_agrees_with_joint(ds):
-    m = J.matrix_entry({"env": SEA})
-    ids = m["materials"]
-    n = len(ids)
-    pairs = [(i, j) for i in range(n) for j in range(i + 1, n) if (i * 7 + j * 3) % 23 == 0]
-    pairs += [(ids.index(ds.get("materials", "316")["id"]), j) for j in range(n)]
-    cells = {(p[0], p[1]): p for p in m["pairs"]}
-    for i, j in pairs:
-        if i == j:
-            continue
-        r = J.joint_entry({"a": ids[i], "b": ids[j], "env": SEA})
-        _, _, delta, verdict, anode = cells[(min(i, j), max(i, j))]
-        assert (verdict, None if anode is None else ids[anode], delta) == (r["verdict"], r["anode"], r["delta_E_V"])
-
-
-def test_matrix_csv(ds):
-    m = J.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"], "csv": True})
-    assert {k: v for k, v in m.items() if k != "csv"} == \
-        J.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"], "csv": False})
-    cells = {(m["materials"][p[0]], m["materials"][p[1]]): p for p in m["pairs"]}
-    lines = m["csv"].splitlines()
-    assert lines[0].startswith("#") and ds.version in lines[0]
-    rows = list(csv.reader(io.StringIO("\n".join(lines[1:]))))
-    assert rows[0] == ["a", "b", "anode", "delta_E_V", "verdict"]
-    assert len(rows) == 1 + 4 * 3 // 2
-    for a, b, anode, d, verdict in rows[1:]:
-        _, _, delta, tier, k = cells[(a, b)]
-        assert float(d) == pytest.approx(delta, abs=1e-4)
-        assert verdict == tier and anode == ("" if k is None else m["materials"][k])
-
-
-def test_matrix_input_errors():
-    assert api.call("matrix", {"env": SEA, "materials": ["zinc", "nope-metal"]})["error"]["field"] == "materials[1]"
-    assert api.call("matrix", {"env": SEA, "materials": []})["error"]["field"] == "materials"
-    assert api.call("matrix", {"env": SEA, "materials": "zinc"})["error"]["field"] == "materials"
-    assert api.call("matrix", {})["error"]["field"] == "env"
-    assert api.call("matrix", {"env": SEA, "cols": 1})["error"]["field"] == "cols"
-    for junk in ("yes", 1, [], {}):
-        assert api.call("matrix", {"env": SEA, "csv": junk})["error"]["field"] == "csv"
-
-
-def test_matrix_is_fast(ds):
-    # all pairs of every seawater material (about 50): well under 100 ms in CPython (best of 3)
-    m = J.matrix_entry({"env": SEA})
-    assert len(m["materials"]) >= 45
-    best = min(_timed(lambda: J.matrix_entry({"env": SEA})) for _ in range(3))
-    assert best < 0.1, f"{best * 1000:.0f} ms"
-
-
-def _timed(fn):
-    t = time.perf_counter()
-    fn()
-    return time.perf_counter() - t
-
-
 # ---------------------------------------------------------------- robustness and documentation
 
 
-_NAMES = st.one_of(st.sampled_from(["zinc", "316", "S31600", "graphite", "gold", "copper", "carbon steel"]),
-                   st.text(max_size=12), st.none(), st.integers(), st.floats())
-_ENVS = st.one_of(st.sampled_from([SEA, "marine-atmosphere", "indoor-controlled", "seawater-quiescent"]),
-                  st.text(max_size=12), st.none())
 _RATIOS = st.one_of(st.none(), st.floats(allow_nan=True, allow_infinity=True), st.integers(), st.text(max_size=3))
 
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
-@given(a=_NAMES, b=_NAMES, env=_ENVS, ratio=_RATIOS)
+@given(a=NAMES, b=NAMES, env=ENVS, ratio=_RATIOS)
 def test_joint_any_input_gives_a_result_or_a_clear_error(a, b, env, ratio):
     req = {"a": a, "b": b, "env": env}
     if ratio is not None:
         req["area_ratio"] = ratio
     out = api.call("joint", req)
-    if out["ok"]:
-        json.dumps(out["result"], allow_nan=False)
-    else:
-        assert out["error"]["field"] and out["error"]["message"]
-
-
-@settings(max_examples=40, deadline=None)
-@given(env=_ENVS, mats=st.one_of(st.none(), st.lists(_NAMES, max_size=4)))
-def test_matrix_any_input_gives_a_result_or_a_clear_error(env, mats):
-    req = {"env": env}
-    if mats is not None:
-        req["materials"] = mats
-    out = api.call("matrix", req)
     if out["ok"]:
         json.dumps(out["result"], allow_nan=False)
     else:
@@ -502,7 +286,7 @@ def _public_functions(module):
             yield name, fn
 
 
-@pytest.mark.parametrize("module", [J, g102], ids=["joint", "rate"])
+@pytest.mark.parametrize("module", [J, g102, S, A, M], ids=["joint", "rate", "series", "advice", "matrix"])
 def test_public_functions_document_units_references_and_examples(module):
     for name, fn in _public_functions(module):
         doc = inspect.getdoc(fn) or ""

@@ -1,0 +1,120 @@
+"""The pair table (calc.matrix), on the shipped dataset."""
+
+import csv
+import io
+import json
+import time
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from calc import api
+from calc import joint as J
+from calc import matrix as M
+from calc import series as S
+from calc.dataset import current
+from jointkit import ENVS, NAMES, SEA, env_with, mid
+
+
+@pytest.fixture(scope="module")
+def ds():
+    return current()
+
+
+def test_every_pair_anode_is_the_lower_potential(ds):
+    # Invariant over the whole table: the anode of every couple has the more negative mid-point
+    m = M.matrix_entry({"env": SEA})
+    ids = m["materials"]
+    mids = {i: mid(ds, i) for i in ids}
+    assert m["pair_fields"] == ["a", "b", "delta_E_V", "verdict", "anode"]
+    for i, j, delta, verdict, anode in m["pairs"]:
+        a, b = ids[i], ids[j]
+        if abs(mids[a] - mids[b]) < 1e-9:
+            assert anode is None
+        else:
+            assert ids[anode] == (a if mids[a] < mids[b] else b)
+            assert delta == pytest.approx(abs(mids[a] - mids[b]), abs=1e-4)
+
+
+def test_matrix_defaults_to_every_material_with_data(ds):
+    for env in (SEA, env_with(ds, basis="anodic-index", severity="harsh")):
+        m = M.matrix_entry({"env": env})
+        field = "seawater_range_V_SCE" if m["basis"] == "galvanic-series" else "anodic_index_V"
+        expected = [r["id"] for r in ds.records("materials") if r.get(field) is not None]
+        assert m["materials"] == expected
+        n = len(expected)
+        # every pair once, a before b in the order of the materials; a material with itself is no pair
+        assert [(p[0], p[1]) for p in m["pairs"]] == [(i, j) for i in range(n) for j in range(i + 1, n)]
+        assert all(p[4] in (None, p[0], p[1]) and p[3] in S.TIERS for p in m["pairs"])
+        assert sum(m["counts"].values()) == len(m["pairs"])
+        assert "csv" not in m  # made only when asked for
+
+
+def test_matrix_agrees_with_joint(ds):
+    m = M.matrix_entry({"env": SEA})
+    ids = m["materials"]
+    n = len(ids)
+    pairs = [(i, j) for i in range(n) for j in range(i + 1, n) if (i * 7 + j * 3) % 23 == 0]
+    pairs += [(ids.index(ds.get("materials", "316")["id"]), j) for j in range(n)]
+    cells = {(p[0], p[1]): p for p in m["pairs"]}
+    for i, j in pairs:
+        if i == j:
+            continue
+        r = J.joint_entry({"a": ids[i], "b": ids[j], "env": SEA})
+        _, _, delta, verdict, anode = cells[(min(i, j), max(i, j))]
+        assert (verdict, None if anode is None else ids[anode], delta) == (r["verdict"], r["anode"], r["delta_E_V"])
+
+
+def test_matrix_csv(ds):
+    m = M.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"], "csv": True})
+    assert {k: v for k, v in m.items() if k != "csv"} == \
+        M.matrix_entry({"env": SEA, "materials": ["zinc", "carbon steel", "316", "titanium"], "csv": False})
+    cells = {(m["materials"][p[0]], m["materials"][p[1]]): p for p in m["pairs"]}
+    lines = m["csv"].splitlines()
+    assert lines[0].startswith("#") and ds.version in lines[0]
+    rows = list(csv.reader(io.StringIO("\n".join(lines[1:]))))
+    assert rows[0] == ["a", "b", "anode", "delta_E_V", "verdict"]
+    assert len(rows) == 1 + 4 * 3 // 2
+    for a, b, anode, d, verdict in rows[1:]:
+        _, _, delta, tier, k = cells[(a, b)]
+        assert float(d) == pytest.approx(delta, abs=1e-4)
+        assert verdict == tier and anode == ("" if k is None else m["materials"][k])
+
+
+def test_matrix_input_errors():
+    assert api.call("matrix", {"env": SEA, "materials": ["zinc", "nope-metal"]})["error"]["field"] == "materials[1]"
+    assert api.call("matrix", {"env": SEA, "materials": []})["error"]["field"] == "materials"
+    assert api.call("matrix", {"env": SEA, "materials": "zinc"})["error"]["field"] == "materials"
+    assert api.call("matrix", {})["error"]["field"] == "env"
+    assert api.call("matrix", {"env": SEA, "cols": 1})["error"]["field"] == "cols"
+    for junk in ("yes", 1, [], {}):
+        assert api.call("matrix", {"env": SEA, "csv": junk})["error"]["field"] == "csv"
+
+
+def test_matrix_is_fast(ds):
+    # all pairs of every seawater material (about 50): well under 100 ms in CPython (best of 3)
+    m = M.matrix_entry({"env": SEA})
+    assert len(m["materials"]) >= 45
+    best = min(_timed(lambda: M.matrix_entry({"env": SEA})) for _ in range(3))
+    assert best < 0.1, f"{best * 1000:.0f} ms"
+
+
+def _timed(fn):
+    t = time.perf_counter()
+    fn()
+    return time.perf_counter() - t
+
+
+@settings(max_examples=40, deadline=None)
+@given(env=ENVS, mats=st.one_of(st.none(), st.lists(NAMES, max_size=4)))
+def test_matrix_any_input_gives_a_result_or_a_clear_error(env, mats):
+    req = {"env": env}
+    if mats is not None:
+        req["materials"] = mats
+    out = api.call("matrix", req)
+    if out["ok"]:
+        json.dumps(out["result"], allow_nan=False)
+    else:
+        assert out["error"]["field"] and out["error"]["message"]
+
