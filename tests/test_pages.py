@@ -62,7 +62,7 @@ def anchors_of(text):
 
 
 def links_of(text):
-    """Markdown link targets and the hrefs of the HTML blocks (see pages.html_blocks)."""
+    """Markdown link targets and the hrefs of the HTML blocks (see sitebuild/pages/kit.py)."""
     return re.findall(r"\]\(([^)\s]+)\)", body(text)) + [html.unescape(h) for h in re.findall(r'href="([^"]*)"', body(text))]
 
 

@@ -1,7 +1,7 @@
 """The generated pages' tables, lists and "Cited for" lines are written as raw HTML blocks
-(sitebuild.pages.html_blocks; Python-Markdown passes them through instead of running its inline
-patterns over every cell). The site must not change by it: built with mkdocs and the Material
-theme, every generated page shows the same HTML (links included, which mkdocs rewrites in
+(sitebuild/pages/templates/_blocks.md.j2; Python-Markdown passes them through instead of running
+its inline patterns over every cell). The site must not change by it: built with mkdocs and the
+Material theme, every generated page shows the same HTML (links included, which mkdocs rewrites in
 Markdown but not in raw HTML) and gives the same search entries as the plain Markdown form.
 """
 
@@ -15,6 +15,8 @@ import sys
 import pytest
 
 from sitebuild import pages
+from sitebuild.pages import kit
+from sitebuild.pages.text import Md
 from sitebuild.dataset import bundle_from_raw, load_project_bundle, read_folder
 
 from pagekit import write_docs
@@ -24,6 +26,11 @@ MINIMAL = os.path.join(ROOT, "tests", "fixtures", "minimal")
 #: the Markdown extensions of mkdocs.yml
 EXTENSIONS = ["admonition", "attr_list", "md_in_html", "tables", "toc", "pymdownx.details"]
 HOSTILE = '<script>alert("x")</script> *bold* _it_ | pipe [link](http://example.invalid) {#id} `code` --x &amp;'
+
+
+@pytest.fixture(scope="module")
+def shipped():
+    return load_project_bundle()
 
 
 def hostile_bundle():
@@ -102,20 +109,48 @@ def test_href_as_mkdocs_writes_it():
 
 
 def test_inline_html_escapes_code_and_keeps_escaped_text():
-    cell = "`a<b>&c` **" + pages.esc("x*y [z](w.md) </td>") + "** [s](sources.md#src-a)"
-    assert pages.inline_html(cell, "reference/series.md") == (
+    """A cell's code span, strong text and link as the site writes them, and as Markdown."""
+    def cell(html):
+        page = kit.Site({}, html=html).page("reference/series.md")
+        return " ".join([page.code("a<b>&c"), page.strong("x*y [z](w.md) </td>"), page.a("s", "sources.md#src-a")])
+
+    assert cell(True) == (
         "<code>a&lt;b&gt;&amp;c</code> <strong>x&#42;y &#91;z&#93;(w.md) &#60;/td&#62;</strong> "
         '<a href="../sources/#src-a">s</a>')
+    assert cell(False) == "`a<b>&c` **" + pages.esc("x*y [z](w.md) </td>") + "** [s](sources.md#src-a)"
+
+
+BLOCKS = ('{% import "_blocks.md.j2" as b with context %}# T\n\nintro\n\n{{ b.table(["A", "B"], rows) }}\n\n'
+          '{{ b.list(["one", "two"]) }}\n\n{{ b.paragraph(cited) }}\n\nmore')
+
+
+def blocks(html):
+    """The blocks of _blocks.md.j2 (a table, a list, a "Cited for" line) on a page, without its front matter."""
+    page = kit.Site({}, html=html).page("reference/p.md")
+    text = page.render(kit.ENV.from_string(BLOCKS), rows=[["1", page.a("x", "a.md")]],
+                       cited=Md("Cited for: ") + page.a("y", "b.md") + Md("."))
+    return text.split("\n---\n\n", 1)[1]
 
 
 def test_html_blocks_shapes():
-    text = "# T\n\nintro\n| A | B |\n|---|---|\n| 1 | [x](a.md) |\n- one\n- two\nCited for: [y](b.md).\n\nmore"
-    out = pages.html_blocks(text, "reference/p.md")
-    assert out == ("# T\n\nintro\n\n<table>\n<thead>\n<tr>\n<th>A</th>\n<th>B</th>\n</tr>\n</thead>\n<tbody>\n"
-                   '<tr>\n<td>1</td>\n<td><a href="../a/">x</a></td>\n</tr>\n</tbody>\n</table>\n\n'
-                   '<ul>\n<li>one</li>\n<li>two</li>\n</ul>\n\n<p>Cited for: <a href="../b/">y</a>.</p>\n\nmore')
-    # a "Cited for" line that runs on into a paragraph stays Markdown
-    assert pages.html_blocks("Cited for: [y](b.md).\nmore", "reference/p.md") == "Cited for: [y](b.md).\nmore"
+    assert blocks(True) == (
+        "# T\n\nintro\n\n<table>\n<thead>\n<tr>\n<th>A</th>\n<th>B</th>\n</tr>\n</thead>\n<tbody>\n"
+        '<tr>\n<td>1</td>\n<td><a href="../a/">x</a></td>\n</tr>\n</tbody>\n</table>\n\n'
+        '<ul>\n<li>one</li>\n<li>two</li>\n</ul>\n\n<p>Cited for: <a href="../b/">y</a>.</p>\n\nmore\n')
+    assert blocks(False) == ("# T\n\nintro\n\n| A | B |\n|---|---|\n| 1 | [x](a.md) |\n\n- one\n- two\n\n"
+                             "Cited for: [y](b.md).\n\nmore\n")
+
+
+def test_cited_for_lines_stand_alone(shipped):
+    """A "Cited for" line is its own paragraph: a raw <p> block in the site's form, a line between
+    blank lines in the Markdown form (so it never runs on into the next paragraph)."""
+    html_form = pages.generate_pages(shipped)["reference/sources.md"].split("\n")
+    markdown_form = pages.generate_pages(shipped, raw_html=False)["reference/sources.md"].split("\n")
+    cited = [i for i, line in enumerate(markdown_form) if line.startswith("Cited for: ")]
+    assert cited and all(markdown_form[i - 1] == "" and markdown_form[i + 1] == "" for i in cited)
+    html_cited = [line for line in html_form if "Cited for: " in line]
+    assert len(html_cited) == len(cited)
+    assert all(line.startswith("<p>Cited for: ") and line.endswith(".</p>") for line in html_cited)
 
 
 def test_no_tags_but_the_generators_own():

@@ -128,7 +128,7 @@ def test_data_text_is_shown_as_text_on_the_reference_pages(hostile, page_of):
     body = page.locator("article").inner_text()
     assert MATERIAL_NOTE in body
     assert site["material_name"] in page.locator("article h1").inner_text()
-    title = page.title()  # the title is plain text: look-alikes for < > " (sitebuild/pages.py)
+    title = page.title()  # the title is plain text: look-alikes for < > " (sitebuild/pages/kit.py)
     assert "img src=x onerror=" in title and "<" not in title
     assert_inert(page, guard, "material page")
     # the electrochemical series: the half-reaction's note in the notes list
