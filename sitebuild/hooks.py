@@ -121,7 +121,7 @@ WHEEL_CACHE = os.path.join(ROOT, ".cache", "wheels")
 
 def _wheel_key(data):
     """Hash of what goes into the wheel: calc's sources, the dataset bytes, this recipe [hex]."""
-    h = hashlib.sha256(b"couplewise-calc-wheel 2\0" + WHEEL_VERSION.encode() + b"\0" + data)
+    h = hashlib.sha256(b"couplewise-calc-wheel 3\0" + WHEEL_VERSION.encode() + b"\0" + data)
     calc_dir = os.path.join(ROOT, "calc")
     for dirpath, dirnames, filenames in os.walk(calc_dir):
         dirnames[:] = sorted(d for d in dirnames if d != "__pycache__")
@@ -154,7 +154,7 @@ def build_wheel(bundle, out_dir):
                 fh.write(
                     '[build-system]\nrequires = ["setuptools>=65"]\nbuild-backend = "setuptools.build_meta"\n'
                     f'[project]\nname = "couplewise-calc"\nversion = "{WHEEL_VERSION}"\nrequires-python = ">=3.11"\n'
-                    '[tool.setuptools]\npackages = ["calc"]\n'
+                    '[tool.setuptools.packages.find]\ninclude = ["calc", "calc.*"]\n'
                     '[tool.setuptools.package-data]\ncalc = ["dataset.json"]\n')
             proc = subprocess.run(
                 [sys.executable, "-m", "pip", "wheel", "--no-deps", "--no-build-isolation", "--quiet",

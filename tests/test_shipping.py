@@ -40,6 +40,12 @@ def test_wheel_is_built_by_pip_reproducibly_and_holds_calc_and_the_dataset(bundl
         names = set(zf.namelist())
         assert {"calc/api.py", "calc/cell.py", "calc/joint.py", "calc/dataset.json"} <= names
         assert not any("__pycache__" in n or n.endswith(".pyc") for n in names)
+        # every module of calc ships, those of its sub-packages too (calc/field/...)
+        root = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+        sources = {os.path.relpath(os.path.join(d, f), root).replace(os.sep, "/")
+                   for d, _, fs in os.walk(os.path.join(root, "calc")) if "__pycache__" not in d
+                   for f in fs if f.endswith(".py")}
+        assert sources <= names, sorted(sources - names)
         assert json.loads(zf.read("calc/dataset.json"))["version"] == bundle["version"]
         wheel_meta = zf.read(f"{hooks.WHEEL_NAME}-{hooks.WHEEL_VERSION}.dist-info/WHEEL").decode()
         assert "Root-Is-Purelib: true" in wheel_meta and "Tag: py3-none-any" in wheel_meta
