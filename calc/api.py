@@ -25,8 +25,8 @@ ENTRY_POINTS = {
     "joint": "calc.joint:joint_entry",
     "matrix": "calc.matrix:matrix_entry",
     "rate": "calc.rate:rate_entry",
-    "measured": "calc.fieldcheck:measured_joint_entry",
-    "cp": "calc.fieldcheck:cp_reading_entry",
+    "measured": "calc.field.measured:measured_joint_entry",
+    "cp": "calc.field.cpreading:cp_reading_entry",
 }
 
 

@@ -22,6 +22,8 @@ FILES = {
     "ions.yaml": "ions",
     "sources.yaml": "sources",
     "cp_criteria.yaml": "cp_criteria",
+    "cp_structures.yaml": "cp_structures",
+    "cp_settings.yaml": "cp_settings",
 }
 
 
@@ -50,13 +52,22 @@ def read_folder(data_dir):
     return raw, problems
 
 
-def bundle_from_raw(raw):
-    """Add the version (content hash) and date to the records."""
+def bundle_from_raw(raw, data_dir=None):
+    """Add the version (content hash), date, bundle format and YAML digest to the records, and
+    each half-reaction's species parsed (``species``: the page holds no species grammar)."""
+    from calc.dataset import BUNDLE_FORMAT, yaml_digest
+    from calc.species import as_record
+
     body = {key: raw.get(key, []) for key in FILES.values()}
     text = json.dumps(body, sort_keys=True, ensure_ascii=False, separators=(",", ":"))
     digest = hashlib.sha256(text.encode("utf-8")).hexdigest()[:12]
+    body["half_reactions"] = [dict(rec, species=[as_record(t, side) for side in ("oxidised", "reduced")
+                                                 for t in rec.get(side) or []])
+                              for rec in body["half_reactions"]]
     body["version"] = digest
     body["date"] = os.environ.get("COUPLEWISE_DATA_DATE") or _data_date()
+    body["format"] = BUNDLE_FORMAT
+    body["yaml_digest"] = yaml_digest(data_dir) if data_dir else None
     return body
 
 
@@ -79,7 +90,7 @@ def load_bundle(data_dir):
         problems = [p for p in validate_raw(raw, data_dir) if not p.startswith("warning")]
     if problems:
         raise DataProblems(problems)
-    return bundle_from_raw(raw)
+    return bundle_from_raw(raw, data_dir)
 
 
 CACHE_DIR = os.path.join(os.path.dirname(HERE), ".cache")
@@ -156,3 +167,20 @@ def load_project_bundle(data_dir=None, use_cache=True):
         except OSError:
             pass  # a read-only checkout still works, only slower
     return bundle
+
+
+def write_engine_bundle(data_dir=None, path=None):
+    """Validate and bundle a data folder into the engine's ``calc/dataset.json``; returns its path.
+
+    What the command line does when calc refuses a missing or stale bundle
+    (``couplewise data bundle``); the test session does it first too (``tests/conftest.py``).
+    """
+    from calc.dataset import BUNDLE_PATH
+
+    bundle = load_project_bundle(data_dir)
+    path = path or BUNDLE_PATH
+    tmp = path + ".tmp"
+    with open(tmp, "w", encoding="utf-8") as fh:
+        json.dump(bundle, fh, ensure_ascii=False, separators=(",", ":"), allow_nan=False)
+    os.replace(tmp, path)
+    return path

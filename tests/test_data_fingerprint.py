@@ -10,7 +10,7 @@ from sitebuild.dataset import load_project_bundle
 
 FINGERPRINT = {
     "counts": {"half_reactions": 78, "reference_electrodes": 16, "materials": 56, "environments": 10,
-               "ions": 61, "sources": 38, "cp_criteria": 22},
+               "ions": 61, "sources": 38, "cp_criteria": 22, "cp_structures": 7, "cp_settings": 6},
     "sum_E0_V": -24.0248,
     "sum_dEdT_mV_per_K": -7.342,
     "sum_reference_E_V_SHE": 3.4874,

@@ -40,7 +40,11 @@ from calc import api, cli
 from calc.activity import VALID_I_MAX
 from calc.conditions import ACTIVITY_MAX, PRESSURE_MAX_ATM
 from calc.constants import T_ZERO_C, nernst_slope
-from calc.fieldcheck import READING_KINDS, SETTINGS, STRUCTURES
+from calc.field.criteria import READING_KINDS, catalogue
+
+#: the CP structure and setting ids of the shipped data (data/cp_structures.yaml, cp_settings.yaml)
+STRUCTURES = [r["id"] for r in catalogue("cp_structures")]
+SETTINGS = [r["id"] for r in catalogue("cp_settings")]
 
 # ---------------------------------------------------------------------------- the settings profile
 
