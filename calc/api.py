@@ -27,6 +27,8 @@ ENTRY_POINTS = {
     "rate": "calc.rate:rate_entry",
     "measured": "calc.field.measured:measured_joint_entry",
     "cp": "calc.field.cpreading:cp_reading_entry",
+    "mixed": "calc.mixed:mixed_entry",
+    "passivity": "calc.passivity:passivity_entry",
 }
 
 

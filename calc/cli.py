@@ -169,7 +169,15 @@ def build_parser():
     dsub.add_parser("bundle", help="validate data/ and write calc/dataset.json, the bundle the engine reads")
     ex = sub.add_parser("example", help="print a calculator's opening request (the page's demonstration inputs) as JSON")
     ex.add_argument("name", choices=sorted(OPENINGS))
-    for sp in (e, c, ep, v, a, j, m, r, ms, cp):
+    mx = sub.add_parser("mixed", help="mixed potential of metallically connected electrodes from their kinetics; "
+                                      "the request as JSON on standard input")
+    pv = sub.add_parser("passivity", help="PREN and pitting/crevice temperature estimates of a stainless or nickel alloy")
+    for opt, what in (("--cr", "chromium"), ("--mo", "molybdenum"), ("--n", "nitrogen")):
+        pv.add_argument(opt, type=float, required=True, metavar="%", help=f"{what} [wt %%]")
+    pv.add_argument("--w", type=float, metavar="%", help="tungsten [wt %%]")
+    pv.add_argument("--temp", type=float, default=None, metavar="C", help="service temperature [°C]")
+    _water_options(pv)
+    for sp in (e, c, ep, v, a, j, m, r, ms, cp, mx, pv):
         sp.add_argument("--json", action="store_true", help="print one JSON object")
     return p
 
@@ -235,6 +243,19 @@ def _request(ns):
             req["structure_temp_C"] = ns.structure_temp
         if ns.polarisation is not None:
             req["polarisation_mV"] = ns.polarisation
+        return _water_request(ns, req)
+    if cmd == "mixed":
+        try:
+            req = json.loads(sys.stdin.read())
+        except ValueError as exc:
+            raise InputError("request", "standard input", f"a JSON object ({exc})") from None
+        if not isinstance(req, dict):
+            raise InputError("request", type(req).__name__, "a JSON object")
+        return req
+    if cmd == "passivity":
+        req = {"cr": ns.cr, "mo": ns.mo, "n": ns.n}
+        if ns.w is not None:
+            req["w"] = ns.w
         return _water_request(ns, req)
     raise InputError("command", cmd, "a known command")
 

@@ -15,6 +15,8 @@ HEADLINE = {
     "measured": ["anode", "cathode", "delta_E_V", "allowable_V", "verdict", "verdict_text", "a_V_SCE", "b_V_SCE",
                  "agreement_text"],
     "cp": ["verdict_label", "verdict_text", "reading_kind", "ir_drop"],
+    "mixed": ["E_mixed_V", "galvanic_current_A"],
+    "passivity": ["pren", "pren_formula", "cpt_C", "cct_C", "holds", "reason"],
 }
 
 
