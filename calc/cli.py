@@ -11,6 +11,7 @@ import sys
 
 from . import api, dataset
 from .activity import MODELS
+from .bounds import BOUNDS
 from .errors import DataError, InputError
 from .clitext import format_text
 from .spec import OPENINGS
@@ -34,6 +35,14 @@ class _Parser(argparse.ArgumentParser):
         sys.exit(2)
 
 
+def _bound(words, name, extra=""):
+    """An option's help: its words, then what calc allows (calc.bounds, the page's hints too)."""
+    b = BOUNDS[name]
+    low = "" if b.low is None else ("above " if b.low_open else "from ") + f"{b.low:g}"
+    high = "" if b.high is None else (", up to " if b.low_open else " to ") + f"{b.high:g}"
+    return f"{words}; {low}{high}{(' ' + b.unit) if b.unit else ''}" + (f", {extra}" if extra else "")
+
+
 def _pairs(values, field, number=True):
     out = {}
     for item in values or []:
@@ -51,18 +60,18 @@ def _pairs(values, field, number=True):
 
 
 def _conditions(p, with_pH=True):
-    p.add_argument("--temp", type=float, default=None, metavar="C", help="temperature [°C], default 25")
-    p.add_argument("--activity", action="append", metavar="SP=A", help="activity of a species [unitless]")
-    p.add_argument("--molality", action="append", metavar="SP=M", help="molality of a species [mol/kg]")
+    p.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("temperature [°C]", "temp_C", "default 25"))
+    p.add_argument("--activity", action="append", metavar="SP=A", help=_bound("activity of a species [unitless]", "activity"))
+    p.add_argument("--molality", action="append", metavar="SP=M", help=_bound("molality of a species [mol/kg]", "molality"))
     g = p.add_mutually_exclusive_group()
-    g.add_argument("--ionic-strength", type=float, metavar="I", help="ionic strength [mol/kg]")
+    g.add_argument("--ionic-strength", type=float, metavar="I", help=_bound("ionic strength [mol/kg]", "ionic_strength"))
     g.add_argument("--env", metavar="ENV", help="take the ionic strength from a named environment")
     p.add_argument("--model", metavar="NAME", help="activity model: " + ", ".join(MODELS))
     if with_pH:
-        p.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH (sets a(H+) and a(OH-))")
+        p.add_argument("--pH", type=float, dest="pH", metavar="X", help=_bound("pH (sets a(H+) and a(OH-))", "pH"))
     else:
         p.set_defaults(pH=None)
-    p.add_argument("--pressure", action="append", metavar="GAS=ATM", help="partial pressure of a gas [atm]")
+    p.add_argument("--pressure", action="append", metavar="GAS=ATM", help=_bound("partial pressure of a gas [atm]", "pressure_atm"))
 
 
 def _conditions_request(ns):
@@ -87,8 +96,8 @@ def _conditions_request(ns):
 
 def _water_options(p):
     g = p.add_mutually_exclusive_group()
-    g.add_argument("--salinity", type=float, metavar="S", help="salinity, for an Ag/AgCl seawater electrode [g/kg]")
-    g.add_argument("--chloride", type=float, metavar="MG_PER_L", help="chloride instead of salinity [mg/L]")
+    g.add_argument("--salinity", type=float, metavar="S", help=_bound("salinity [g/kg]", "salinity"))
+    g.add_argument("--chloride", type=float, metavar="MG_PER_L", help=_bound("chloride instead of salinity [mg/L]", "chloride_mg_per_L"))
 
 
 def _water_request(ns, req):
@@ -118,11 +127,11 @@ def build_parser():
     _conditions(ep, with_pH=False)
     ep.add_argument("--pH-values", dest="pH_values", metavar="X,Y,...", help="pH values, default 0,1,...,14")
     v = sub.add_parser("convert", help="convert a reading between reference electrodes")
-    v.add_argument("value", type=float, help="the reading [V]")
+    v.add_argument("value", type=float, help=_bound("the reading [V]", "value_V"))
     v.add_argument("--from", dest="from_ref", required=True, metavar="REF")
     v.add_argument("--to", dest="to_ref", required=True, metavar="REF")
     v.add_argument("--temp", type=float, default=None, metavar="C")
-    v.add_argument("--pH", type=float, dest="pH", metavar="X", help="pH, for RHE")
+    v.add_argument("--pH", type=float, dest="pH", metavar="X", help=_bound("pH, for RHE", "pH"))
     a = sub.add_parser("activity", help="activity coefficient of an ion")
     a.add_argument("species")
     a.add_argument("--ionic-strength", type=float, required=True, metavar="I")
@@ -142,25 +151,25 @@ def build_parser():
     r.add_argument("--current-density", type=float, required=True, metavar="UA_PER_CM2")
     ms = sub.add_parser("measured", help="judge a joint from two potentials measured on site")
     ms.add_argument("--a", dest="a_name", required=True, metavar="NAME", help="label of the first part")
-    ms.add_argument("--a-reading", type=float, required=True, metavar="V", help="its reading [V vs electrode]")
+    ms.add_argument("--a-reading", type=float, required=True, metavar="V", help=_bound("its reading [V vs electrode]", "reading_V"))
     ms.add_argument("--b", dest="b_name", required=True, metavar="NAME", help="label of the second part")
-    ms.add_argument("--b-reading", type=float, required=True, metavar="V", help="its reading [V vs electrode]")
+    ms.add_argument("--b-reading", type=float, required=True, metavar="V", help=_bound("its reading [V vs electrode]", "reading_V"))
     ms.add_argument("--electrode", required=True, metavar="REF", help="reference electrode of both readings")
     ms.add_argument("--env", required=True, metavar="ENV", help="environment (sets the allowable difference)")
-    ms.add_argument("--temp", type=float, default=None, metavar="C", help="electrode temperature [°C], default 25")
+    ms.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("electrode temperature [°C]", "temp_C", "default 25"))
     _water_options(ms)
     ms.add_argument("--a-material", metavar="MATERIAL", help="material of the first part, for the published series")
     ms.add_argument("--b-material", metavar="MATERIAL", help="material of the second part")
     cp = sub.add_parser("cp", help="judge a cathodic-protection reading against the published criteria")
-    cp.add_argument("value", type=float, help="the reading [V vs electrode]")
+    cp.add_argument("value", type=float, help=_bound("the reading [V vs electrode]", "reading_V"))
     cp.add_argument("--structure", required=True, metavar="ID", help="e.g. carbon-steel, aluminium")
     cp.add_argument("--setting", required=True, metavar="ID", help="e.g. soil-aerobic, seawater-aerobic")
     cp.add_argument("--electrode", required=True, metavar="REF")
     cp.add_argument("--kind", dest="reading_kind", required=True, metavar="on|instant-off",
                     help="on (current flowing) or instant-off (current just interrupted)")
-    cp.add_argument("--temp", type=float, default=None, metavar="C", help="electrode temperature [°C], default 25")
-    cp.add_argument("--structure-temp", type=float, default=None, metavar="C", help="structure temperature [°C]")
-    cp.add_argument("--polarisation", type=float, default=None, metavar="MV", help="polarisation shift [mV]")
+    cp.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("electrode temperature [°C]", "temp_C", "default 25"))
+    cp.add_argument("--structure-temp", type=float, default=None, metavar="C", help=_bound("structure temperature [°C]", "structure_temp_C"))
+    cp.add_argument("--polarisation", type=float, default=None, metavar="MV", help=_bound("polarisation shift [mV]", "polarisation_mV"))
     _water_options(cp)
     d = sub.add_parser("data", help="maintainer tools for the dataset")
     dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
@@ -175,7 +184,7 @@ def build_parser():
     for opt, what in (("--cr", "chromium"), ("--mo", "molybdenum"), ("--n", "nitrogen")):
         pv.add_argument(opt, type=float, required=True, metavar="%", help=f"{what} [wt %%]")
     pv.add_argument("--w", type=float, metavar="%", help="tungsten [wt %%]")
-    pv.add_argument("--temp", type=float, default=None, metavar="C", help="service temperature [°C]")
+    pv.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("service temperature [°C]", "temp_C"))
     _water_options(pv)
     for sp in (e, c, ep, v, a, j, m, r, ms, cp, mx, pv):
         sp.add_argument("--json", action="store_true", help="print one JSON object")
