@@ -105,7 +105,8 @@ def temperature_model_E(model, E25_V, temp_C, rid="reference electrode"):
     if kind == "linear":
         return E25_V + _float(model.get("slope_mV_per_K"), f"{rid}: slope_mV_per_K") / 1000.0 * x
     if kind == "polynomial":
-        coeffs = [_float(c, f"{rid}: coeffs_V") for c in (model.get("coeffs_V") or [])]
+        raw = model.get("coeffs_V")
+        coeffs = [_float(c, f"{rid}: coeffs_V") for c in raw] if isinstance(raw, (list, tuple)) else []
         if not coeffs:
             raise DataError(f"reference electrode {rid}: polynomial model without coeffs_V")
         return sum(c * x ** i for i, c in enumerate(coeffs))

@@ -9,22 +9,14 @@ import hashlib
 import json
 import os
 
+from calc.dataset import KINDS, data_files
+
 HERE = os.path.dirname(os.path.abspath(__file__))
 PROJECT_ROOT = os.path.dirname(HERE)
 PROJECT_DATA = os.path.join(PROJECT_ROOT, "data")
 
-#: file name -> top-level key
-FILES = {
-    "half_reactions.yaml": "half_reactions",
-    "reference_electrodes.yaml": "reference_electrodes",
-    "materials.yaml": "materials",
-    "environments.yaml": "environments",
-    "ions.yaml": "ions",
-    "sources.yaml": "sources",
-    "cp_criteria.yaml": "cp_criteria",
-    "cp_structures.yaml": "cp_structures",
-    "cp_settings.yaml": "cp_settings",
-}
+#: file name -> top-level key: one file per kind of record, the kinds the engine knows
+FILES = {name: kind for name, kind in zip(data_files(), KINDS)}
 
 
 class DataProblems(Exception):
@@ -97,16 +89,11 @@ CACHE_DIR = os.path.join(os.path.dirname(HERE), ".cache")
 
 #: the code that reads, checks and bundles the data (project-relative paths): a cached bundle is
 #: valid only for the code that made it, so these files' bytes are part of the cache key
-BUNDLER_SOURCES = (
-    "sitebuild/dataset.py",
-    "sitebuild/validate.py",
-    "sitebuild/yamlsafe.py",
-    "calc/species.py",      # species parsing and balance (validate)
-    "calc/constants.py",    # Nernst slope, Faraday (validate)
-    "calc/errors.py",
-    "calc/dataset.py",      # the lookup key duplicates are compared by (validate)
-    "calc/fieldcheck.py",   # the structures and settings CP criteria may name (validate)
-)
+BUNDLER_SOURCES = tuple(sorted(
+    os.path.relpath(os.path.join(d, f), PROJECT_ROOT).replace(os.sep, "/")
+    for folder in ("calc", os.path.join("sitebuild", "validate"))  # the validator calls calc's models
+    for d, _, names in os.walk(os.path.join(PROJECT_ROOT, folder)) if "__pycache__" not in d
+    for f in names if f.endswith(".py"))) + ("sitebuild/dataset.py", "sitebuild/yamlsafe.py")
 
 
 def _files_digest(data_dir):
@@ -126,7 +113,7 @@ def _files_digest(data_dir):
             with open(path, "rb") as fh:
                 h.update(hashlib.sha256(fh.read()).digest())
     # the schemas the validator uses: the folder's own schema/, else the project's (as
-    # sitebuild.validate._schema_path looks them up)
+    # sitebuild.validate.schema.schema_path looks them up)
     schema_dirs = [os.path.join(data_dir, "schema"), os.path.join(PROJECT_DATA, "schema")]
     seen = set()
     for sdir in schema_dirs:

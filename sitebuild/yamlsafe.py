@@ -1,4 +1,4 @@
-"""A strict YAML loader: plain data only, duplicate keys rejected, aliases limited.
+"""A strict YAML loader: plain data only, duplicate keys and aliases rejected.
 
 PyYAML's safe loader already refuses arbitrary objects; on top of it this loader rejects
 duplicate mapping keys (a silent overwrite would lose a maintainer's value) and any alias
@@ -14,10 +14,6 @@ MAX_BYTES = 2_000_000
 
 class _StrictLoader(yaml.SafeLoader):
     pass
-
-
-def _no_alias(loader, node):  # pragma: no cover - replaced per instance below
-    raise yaml.constructor.ConstructorError(None, None, "aliases are not allowed", node.start_mark)
 
 
 def _construct_mapping(loader, node, deep=False):
@@ -37,6 +33,8 @@ _StrictLoader.add_constructor(yaml.resolver.BaseResolver.DEFAULT_MAPPING_TAG, _c
 
 
 class _Composer(_StrictLoader):
+    """The strict loader that also refuses every alias before it is expanded."""
+
     def compose_node(self, parent, index):
         if self.check_event(yaml.events.AliasEvent):
             event = self.peek_event()
@@ -46,7 +44,15 @@ class _Composer(_StrictLoader):
 
 
 def load_text(text, name="<text>"):
-    """Parse YAML text strictly. Returns (document, problems)."""
+    """Parse YAML text strictly. Returns (document, problems).
+
+    >>> load_text("a: 1")
+    ({'a': 1}, [])
+    >>> load_text("a: 1\\na: 2", "x.yaml")[1]
+    ["x.yaml:line 2:-: YAML error: duplicate key 'a' (first at line 1)"]
+    >>> load_text("a: &x 1\\nb: *x", "x.yaml")[1]
+    ['x.yaml:line 2:-: YAML error: aliases (*name) are not allowed in the dataset']
+    """
     try:
         return yaml.load(text, Loader=_Composer), []
     except yaml.YAMLError as exc:

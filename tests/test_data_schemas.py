@@ -32,6 +32,8 @@ FILES = {
     "environments": "environments",
     "ions": "ions",
     "cp_criteria": "cp_criteria",
+    "cp_structures": "cp_structures",
+    "cp_settings": "cp_settings",
 }
 
 

@@ -32,10 +32,10 @@ def code_copy(tmp_path, monkeypatch):
 
 
 def test_the_key_covers_the_validator_and_bundler_code(code_copy):
-    assert {"sitebuild/validate.py", "sitebuild/dataset.py", "sitebuild/yamlsafe.py"} <= set(dataset.BUNDLER_SOURCES)
+    assert {"sitebuild/validate/__init__.py", "sitebuild/dataset.py", "sitebuild/yamlsafe.py"} <= set(dataset.BUNDLER_SOURCES)
     before = dataset._files_digest(MINIMAL)
     assert dataset._files_digest(MINIMAL) == before  # the same bytes give the same key
-    for rel in ("sitebuild/validate.py", "sitebuild/dataset.py", "sitebuild/yamlsafe.py"):
+    for rel in ("sitebuild/validate/__init__.py", "sitebuild/dataset.py", "sitebuild/yamlsafe.py"):
         path = code_copy / rel
         original = path.read_bytes()
         path.write_bytes(original + b"\n# a change to the code\n")
@@ -80,7 +80,7 @@ def test_a_bundle_cached_by_old_code_is_not_reused(code_copy):
         json.dump({"version": "made-by-old-code"}, fh)
     assert dataset.load_project_bundle(MINIMAL)["version"] == "made-by-old-code"
     # ... but after an edit to the validator the data is validated and bundled again
-    with open(code_copy / "sitebuild" / "validate.py", "a", encoding="utf-8") as fh:
+    with open(code_copy / "sitebuild" / "validate" / "__init__.py", "a", encoding="utf-8") as fh:
         fh.write("\n# a new check\n")
     bundle = dataset.load_project_bundle(MINIMAL)
     assert bundle["version"] != "made-by-old-code"

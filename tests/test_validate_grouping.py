@@ -18,6 +18,8 @@ import pytest
 
 from calc.constants import T_STANDARD, nernst_slope
 from sitebuild import validate
+from sitebuild.validate import thermo
+from sitebuild.validate.collect import Collector
 from sitebuild.dataset import read_folder
 
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
@@ -56,14 +58,14 @@ def _raw(extra):
 
 
 def _acid_alkaline_lines(raw):
-    out = validate._Collector()
-    validate._acid_alkaline(raw, out)
+    out = Collector()
+    thermo.check_acid_alkaline(raw, out)
     return out.lines
 
 
 def _all_pairs(raw):
     """The pairs (acid label, alkaline label) the all-pairs comparison finds, in its order."""
-    couples = validate._couples(raw)
+    couples = thermo.couples(raw)
     found = []
     for la, _, _, _, va in couples:
         for lb, _, _, _, vb in couples:
@@ -82,7 +84,7 @@ def test_a_broken_pair_among_many_couples_is_found():
     assert not [ln for ln in _acid_alkaline_lines(raw) if "Ag2O" in ln]  # 3 mV apart: nothing to say
     raw = _raw(_stand_ins() + _silver(alkaline_e0=0.60))
     lines = [ln for ln in validate.validate_raw(raw, None) if "acid and alkaline" in ln]
-    expected = 1.173 - nernst_slope(T_STANDARD) * validate.PKW_25C * 2 / 2
+    expected = 1.173 - nernst_slope(T_STANDARD) * thermo.PKW_25C * 2 / 2
     hits = [ln for ln in lines if ln.startswith("half_reactions.yaml:Ag2O/OH-:E0_V: ")]
     assert len(hits) == 1, lines
     assert "Ag2O/Ag (1.173 V)" in hits[0] and f"{expected:.4f} V" in hits[0] and "0.3451" in hits[0]
@@ -96,8 +98,8 @@ def test_grouped_check_finds_exactly_the_pairs_of_the_all_pairs_comparison(monke
     raw["half_reactions"][-1].update(dEdT_source="crc-vanysek", dEdT_confidence="read")
     raw["half_reactions"][-2].update(dEdT_mV_per_K=-0.5, dEdT_source="crc-vanysek", dEdT_confidence="read")
     # report every pair, even one that agrees, so the lines list the pairs found
-    monkeypatch.setattr(validate, "ADDITIVITY_WARN_V", -1.0)
-    monkeypatch.setattr(validate, "ADDITIVITY_DEDT_WARN", -1.0)
+    monkeypatch.setattr(thermo, "ADDITIVITY_WARN_V", -1.0)
+    monkeypatch.setattr(thermo, "ADDITIVITY_DEDT_WARN", -1.0)
     lines = _acid_alkaline_lines(raw)
     reported = []
     for ln in lines:
