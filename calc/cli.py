@@ -258,6 +258,8 @@ def _request(ns):
             req = json.loads(sys.stdin.read())
         except ValueError as exc:
             raise InputError("request", "standard input", f"a JSON object ({exc})") from None
+        except OSError:  # no standard input to read (closed, or a terminal that cannot be read)
+            raise InputError("request", "standard input", "a JSON object on standard input") from None
         if not isinstance(req, dict):
             raise InputError("request", type(req).__name__, "a JSON object")
         return req

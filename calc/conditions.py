@@ -22,20 +22,22 @@ import re
 from dataclasses import dataclass
 
 from . import water
-from .activity import (activity_coefficient, check_ionic_strength, check_model, environment_ionic_strength,
-                       ion, ionic_strength, ionic_strength_terms)
-from .derivation import Derivation, check_number, check_temperature, fmt
+from .activity import activity_coefficient, check_model
+from .bounds import BOUNDS, check
+from .derivation import check_number, check_temperature, fmt
 from .errors import InputError
+from .ionic import check_ionic_strength, environment_ionic_strength, ion, ionic_strength, ionic_strength_terms
 
 #: 1 atm in bar (exact by definition of the atmosphere) [bar/atm]
 BAR_PER_ATM = 1.01325
-PH_HARD = (-2.0, 16.0)
+#: pH accepted (calc.bounds), and the usual range outside which a warning is given
+PH_HARD = (BOUNDS["pH"].low, BOUNDS["pH"].high)
 PH_USUAL = (0.0, 14.0)
 #: highest activity accepted [unitless]; above 10 a warning is given
-ACTIVITY_MAX = 1.0e6
+ACTIVITY_MAX = BOUNDS["activity"].high
 #: highest partial pressure accepted [atm]; above 10 atm a warning is given
-PRESSURE_MAX_ATM = 1000.0
-MOLALITY_MAX = 50.0
+PRESSURE_MAX_ATM = BOUNDS["pressure_atm"].high
+MOLALITY_MAX = BOUNDS["molality"].high
 #: request keys that describe solution conditions
 KEYS = ("temp_C", "activities", "molalities", "pressures", "ionic_strength", "env", "composition", "model", "pH")
 
@@ -117,12 +119,12 @@ def read_conditions(req, prefix="", checked_temp_C=None):
     (7.0, 0.1, 25.0)
     """
     t = checked_temp_C if checked_temp_C is not None else check_temperature(req.get("temp_C"), prefix + "temp_C")
-    acts = _mapping(req, "activities", 0.0, ACTIVITY_MAX, f"an activity above 0 and at most {ACTIVITY_MAX:g} [unitless]",
+    acts = _mapping(req, "activities", 0.0, ACTIVITY_MAX, BOUNDS["activity"].allowed,
                     prefix)
-    mols = _mapping(req, "molalities", 0.0, MOLALITY_MAX, f"a molality above 0 and at most {MOLALITY_MAX:g} mol/kg",
+    mols = _mapping(req, "molalities", 0.0, MOLALITY_MAX, BOUNDS["molality"].allowed,
                     prefix)
     press = _mapping(req, "pressures", 0.0, PRESSURE_MAX_ATM,
-                     f"a partial pressure above 0 and at most {PRESSURE_MAX_ATM:g} atm", prefix)
+                     BOUNDS["pressure_atm"].allowed, prefix)
     for key, (name, _) in acts.items():
         if key in mols:
             raise InputError(f"{prefix}activities.{name}", acts[key][1], "either an activity or a molality for a species, not both")
@@ -130,7 +132,7 @@ def read_conditions(req, prefix="", checked_temp_C=None):
             raise InputError(f"{prefix}activities.{name}", acts[key][1], "either an activity or a partial pressure for a gas, not both")
     pH = req.get("pH")
     if pH is not None:
-        pH = check_number(pH, prefix + "pH", f"a pH from {PH_HARD[0]:g} to {PH_HARD[1]:g}", low=PH_HARD[0], high=PH_HARD[1])
+        pH = check("pH", pH, prefix + "pH")
         for field, mp in (("activities", acts), ("molalities", mols)):
             for k in ("H+", "OH-"):
                 if k in mp:
@@ -215,6 +217,7 @@ def activities_for(species_list, cond, d, used=None):
 
     >>> from calc.species import parse_species
     >>> c = read_conditions({"pH": 3})
+    >>> from calc.derivation import Derivation
     >>> r = activities_for([parse_species("2 H+(aq)"), parse_species("H2(g)")], c, Derivation())
     >>> round(r["H+(aq)"].activity, 12), r["H2(g)"].activity
     (0.001, 1.0)
@@ -354,6 +357,7 @@ def note_unused(cond, used, d, prefix=""):
     References:
         Input rule of the project: nothing given is dropped silently.
 
+    >>> from calc.derivation import Derivation
     >>> c = read_conditions({"activities": {"Na+": 0.5}}); d = Derivation()
     >>> note_unused(c, set(), d); d.warnings[0]["field"]
     'activities.Na+'

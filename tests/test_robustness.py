@@ -146,7 +146,9 @@ class F:
 
 def number(lo, hi, edges=()):
     """A number field accepted from lo to hi; ``edges``: values at or just inside its limits."""
-    inside = st.one_of(st.floats(lo, hi, allow_nan=False), st.integers(math.ceil(max(lo, -10 ** 6)), math.floor(min(hi, 10 ** 6))),
+    ints = (math.ceil(max(lo, -10 ** 6)), math.floor(min(hi, 10 ** 6)))
+    inside = st.one_of(st.floats(lo, hi, allow_nan=False),
+                       st.integers(*ints) if ints[0] <= ints[1] else st.floats(lo, hi, allow_nan=False),
                        st.sampled_from([lo, hi, *edges]), st.floats(lo, hi, allow_nan=False).map(repr))
     bad = st.one_of(st.floats(allow_nan=True, allow_infinity=True), st.sampled_from(NONFINITE + EDGE_NUMBERS),
                     HUGE_INTS, st.sampled_from(NUMBER_TEXT), JUNK,
@@ -203,6 +205,18 @@ EPH_LINE = F(st.fixed_dictionaries({"id": ident(HALF_IDS).good},
                        st.fixed_dictionaries({"id": ident(HALF_IDS).good, "pH": CONDITIONS["pH"].good}),
                        st.fixed_dictionaries({}, optional={"activities": CONDITIONS["activities"].good}), JUNK))
 
+#: one reaction and one electrode of a mixed-potential request (explicit kinetics)
+REACTION = F(st.fixed_dictionaries({"name": LABEL.good, "E_eq_V": number(-3, 3, [-0.76, 0.8]).good,
+                                    "i0_A_per_cm2": number(1e-12, 1e-2, [1e-7]).good},
+                                   optional={"b_anodic_V": number(0.02, 0.3, [0.06]).good,
+                                             "b_cathodic_V": number(0.02, 0.3, [0.12]).good,
+                                             "i_lim_A_per_cm2": number(1e-8, 1e-2, [1e-5]).good}),
+             st.one_of(st.fixed_dictionaries({"name": LABEL.any, "E_eq_V": number(-3, 3).any}), JUNK))
+ELECTRODE = F(st.fixed_dictionaries({"name": LABEL.good, "area_cm2": number(1e-3, 1e6, [1, 100]).good,
+                                     "reactions": st.lists(REACTION.good, min_size=1, max_size=3)}),
+              st.one_of(st.fixed_dictionaries({"name": LABEL.any, "area_cm2": number(1e-3, 1e6).any,
+                                               "reactions": st.lists(REACTION.any, max_size=3)}), JUNK))
+
 #: entry point -> (required fields, optional fields), each a field name -> F
 FIELDS = {
     "electrode": ({"id": ident(HALF_IDS)}, dict(CONDITIONS)),
@@ -245,6 +259,11 @@ FIELDS = {
            {"temp_C": CONDITIONS["temp_C"], "polarisation_mV": number(-500, 500, [100, 0]),
             "structure_temp_C": number(-5, 100, [40, 60]), "salinity": number(1e-3, 45, [2, 35]),
             "chloride_mg_per_L": number(1e-3, 25000, [19000])}),
+    "mixed": ({"electrodes": F(st.lists(ELECTRODE.good, min_size=1, max_size=3),
+                               st.one_of(st.just([]), st.lists(ELECTRODE.any, min_size=1, max_size=3), JUNK))}, {}),
+    "passivity": ({"cr": number(0, 40, [18, 22, 25]), "mo": number(0, 10, [2.5, 3.1]), "n": number(0, 1, [0.17])},
+                  {"w": number(0, 5, [0.6]), "temp_C": CONDITIONS["temp_C"], "salinity": number(1e-3, 45, [2, 35]),
+                   "chloride_mg_per_L": number(1e-3, 25000, [200, 19000])}),
 }
 assert sorted(FIELDS) == sorted(api.ENTRY_POINTS), "every entry point has a request strategy here"
 
@@ -456,6 +475,10 @@ COMMANDS = {
            [("--temp", num_arg(0, 100)), ("--structure-temp", num_arg(0, 100)), ("--polarisation", num_arg(-500, 500)),
             ("--salinity", num_arg(1e-3, 45, [35])), ("--chloride", num_arg(1e-3, 25000)), ("--json", SWITCH)],
            ("--salinity", "--chloride")),
+    "mixed": ([], [], [("--json", SWITCH)], ()),  # its request comes on standard input (none here)
+    "passivity": ([], [("--cr", num_arg(0, 40, [22])), ("--mo", num_arg(0, 10, [3])), ("--n", num_arg(0, 1, [0.17]))],
+                  [("--w", num_arg(0, 5)), ("--temp", num_arg(0, 100)), ("--salinity", num_arg(1e-3, 45, [35])),
+                   ("--chloride", num_arg(1e-3, 25000)), ("--json", SWITCH)], ("--salinity", "--chloride")),
 }
 assert sorted(COMMANDS) == sorted(api.ENTRY_POINTS), "every calculation command has an argument strategy here"
 

@@ -8,8 +8,9 @@ whether it is conclusive: an on reading includes the IR drop (see :mod:`calc.fie
 
 from dataclasses import dataclass
 
+from ..bounds import check
 from ..dataset import current
-from ..derivation import check_number, fmt
+from ..derivation import fmt
 from ..errors import DataError, InputError
 from ..requests import read
 from ..series import EPS_V
@@ -50,10 +51,8 @@ def _inputs(structure, setting, reading_V, electrode, kind, temp_C, polarisation
     rkind = reading_kind(kind)
     value = read_reading(reading_V, "reading_V")
     el = field_electrode(electrode, temp_C, salinity, chloride_mg_per_L)
-    ts = el.temp_C if structure_temp_C is None else check_number(
-        structure_temp_C, "structure_temp_C", "a structure temperature from 0 to 100 °C", low=0.0, high=100.0)
-    pol = None if polarisation_mV is None else check_number(
-        polarisation_mV, "polarisation_mV", "a polarisation shift from 0 to 2000 mV", low=0.0, high=2000.0)
+    ts = el.temp_C if structure_temp_C is None else check("structure_temp_C", structure_temp_C)
+    pol = None if polarisation_mV is None else check("polarisation_mV", polarisation_mV)
     recs = criteria_for(sid, sett)
     if not recs:
         have = settings_with_criteria(sid)

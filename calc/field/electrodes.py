@@ -16,13 +16,19 @@ leads, electrode).
 from dataclasses import dataclass
 
 from .. import constants
-from ..derivation import Derivation, check_number, check_temperature, fmt
+from ..bounds import check
+from ..derivation import Derivation, check_temperature, fmt
 from ..errors import InputError
-from ..refelec import VALUE_MAX_V, reference_potential
+from ..refelec import reference_potential
 from ..requests import norm
 from ..series import EPS_V
-from .seawater import (CHLORIDE_MAX_MG_PER_L, SALINITY_LOW, SALINITY_MAX, SALINITY_REF, brackish_shift,
-                       chloride_activity, salinity_from_chloride)
+from .seawater import (
+    SALINITY_LOW,
+    SALINITY_REF,
+    brackish_shift,
+    chloride_activity,
+    salinity_from_chloride,
+)
 
 #: plausible potentials of a metal in water or soil [V vs SHE]: below magnesium anodes, above
 #: oxygen evolution (−2.5 and +1.0 V vs CSE; common practice)
@@ -48,16 +54,13 @@ class Electrode:
 def _salinity_given(d, salinity, chloride_mg_per_L):
     """The salinity of the request (or from its chloride, with the step), checked; None when neither."""
     if chloride_mg_per_L is not None:
-        chloride = check_number(chloride_mg_per_L, "chloride_mg_per_L",
-                                f"a chloride content above 0 and up to {CHLORIDE_MAX_MG_PER_L:g} mg/L",
-                                low=0.0, high=CHLORIDE_MAX_MG_PER_L, low_open=True)
+        chloride = check("chloride_mg_per_L", chloride_mg_per_L)
         used_s = salinity_from_chloride(chloride)
         d.step("Salinity from chloride", "S = 1.80655·Cl, Cl in g/kg, taking 1 L of water as 1 kg",
                f"S = 1.80655 × {fmt(chloride)} mg/L / 1000", f"S = {fmt(used_s, 4)} g/kg")
         return used_s
     if salinity is not None:
-        return check_number(salinity, "salinity", f"a salinity above 0 and up to {SALINITY_MAX:g} g/kg",
-                            low=0.0, high=SALINITY_MAX, low_open=True)
+        return check("salinity", salinity)
     return None
 
 
@@ -192,8 +195,7 @@ def read_reading(value, field):
     >>> read_reading("-0.85", "reading_V")
     -0.85
     """
-    return check_number(value, field, f"a reading in V from -{VALUE_MAX_V:g} to {VALUE_MAX_V:g}",
-                        low=-VALUE_MAX_V, high=VALUE_MAX_V)
+    return check("reading_V", value, field)
 
 
 def plausibility(value_V, E_she, field, kind, electrode_id):

@@ -12,6 +12,7 @@ import math
 
 from .. import constants, water
 from ..activity import log10_gamma
+from ..bounds import BOUNDS
 from ..elements import ATOMIC_WEIGHTS
 
 #: salinity of the seawater the Ag/AgCl/seawater electrode value refers to [g/kg]
@@ -19,8 +20,8 @@ SALINITY_REF = 35.0
 #: Knudsen relation S = 1.80655·Cl (chlorinity in g/kg), kept in PSS-78 [unitless]
 SALINITY_PER_CHLORINITY = 1.80655
 #: salinity and chloride accepted [g/kg], [mg/L]
-SALINITY_MAX = 45.0
-CHLORIDE_MAX_MG_PER_L = 25000.0
+SALINITY_MAX = BOUNDS["salinity"].high
+CHLORIDE_MAX_MG_PER_L = BOUNDS["chloride_mg_per_L"].high
 #: below this salinity the Ag/AgCl/seawater electrode is unreliable and PSS-78 does not apply [g/kg]
 SALINITY_LOW = 2.0
 
