@@ -5,7 +5,7 @@ native ``input`` event per change, a short pause between changes). A capture lis
 ``bench-input`` at the input event; the page's own ``cw-result-painted`` mark closes the
 measure. Median and p95 are printed, then the ratio p95/median (how even the response is).
 
-A page that draws a chart after its result (the couple page's E–pH chart, one more calculation)
+A page that draws a chart after its result (the couple page's E–pH chart, carried in the same result)
 marks ``cw-chart-painted``; those marks are read afterwards, without changing the pace of the
 changes: for each change, the chart painted before the next change, if any, gives the time from
 the change to its chart (median, and how many changes got their chart).

@@ -35,9 +35,11 @@ with zipfile.ZipFile("/tmp/calc.whl") as whl:
     whl.extractall(site.getsitepackages()[0])
 os.remove("/tmp/calc.whl")
 import calc, calc.api, calc.dataset
-modules = ["calc." + m.name for m in pkgutil.iter_modules(calc.__path__)]
+# every module, those of the sub-packages too: files on the in-memory file system are not part
+# of a snapshot, so a module not imported now could not be imported after the restore
+modules = [m.name for m in pkgutil.walk_packages(calc.__path__, "calc.")]
 for name in modules:
-    if name not in ("calc.cli", "calc.__main__"):  # the command line is not used in the page
+    if name not in ("calc.cli", "calc.clitext", "calc.__main__"):  # the command line is not used in the page
         importlib.import_module(name)
 ds = calc.dataset.current()
 if ds.version != expected_version:

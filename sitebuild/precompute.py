@@ -45,7 +45,7 @@ def js_number(x):
 
 def canonical(value):
     """Canonical JSON: object keys sorted, no spaces, numbers as JavaScript writes them
-    (mirrors ``canonical()`` in calculators.mjs).
+    (mirrors ``canonical()`` in runner.mjs).
 
     >>> canonical({"b": [1.0, "x"], "a": {"Zn2+": 1e-05}})
     '{"a":{"Zn2+":0.00001},"b":[1,"x"]}'

@@ -226,7 +226,7 @@ def test_canonical_request_json_agrees_with_the_build(guarded, served):
               {"t": 0.1, "x": 1e21, "y": 1.5e-7, "z": -0.93, "big": 123456789012.0, "n": None, "ok": True},
               {"v": 2.5e-6, "w": 0.000123, "u": 100.0, "s": "Ag/AgCl seawater", "e": {}, "l": []}]
     got = page.evaluate("""async (values) => {
-      const { canonical } = await import(new URL("assets/js/calculators.mjs", location.origin + "/").href);
+      const { canonical } = await import(new URL("assets/js/runner.mjs", location.origin + "/").href);
       return values.map(canonical);
     }""", values)
     assert got == [canonical(v) for v in values]

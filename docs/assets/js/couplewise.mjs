@@ -1,95 +1,13 @@
-// Couplewise page glue: starts the calculation worker on any page, binds calculator pages.
+// Couplewise page glue, the page's entry script: starts the calculation worker on any page, binds
+// calculator pages (each loads only its own calculator's module, see calculators.mjs) and keeps
+// the site offline-ready (service worker). Nothing imports this module; it imports site.mjs.
 // Small and framework-free: the logic lives in calc (Python, run by Pyodide in the worker).
 // Data text is only ever inserted as text (textContent), never as HTML.
-import { CALCULATORS } from "./calculators.mjs";
+import { loadCalculator } from "./calculators.mjs";
+import { dataset, h, onRuntime, runtimeStatus, servedOverHttp, siteRoot, spec, startWorker } from "./site.mjs";
 
-export const siteRoot = new URL("../../", import.meta.url);
-
-const runtime = { stage: "idle", detail: "", listeners: new Set() };
-let worker = null;
-let seq = 0;
-const pending = new Map();
-
-function setStage(stage, detail) {
-  runtime.stage = stage;
-  runtime.detail = detail || "";
-  for (const fn of runtime.listeners) fn(runtime);
-}
-
-export function onRuntime(fn) {
-  runtime.listeners.add(fn);
-  fn(runtime);
-  return () => runtime.listeners.delete(fn);
-}
-
-export function servedOverHttp() {
-  return location.protocol === "http:" || location.protocol === "https:";
-}
-
-function startWorker() {
-  if (worker || !servedOverHttp()) return worker;
-  try {
-    worker = new Worker(new URL("calc-worker.mjs", import.meta.url), { type: "module" });
-  } catch (err) {
-    setStage("failed", String(err));
-    return null;
-  }
-  setStage("loading", "starting");
-  worker.onmessage = (event) => {
-    const msg = event.data || {};
-    if (msg.type === "status") setStage(msg.stage, msg.detail);
-    else if (msg.type === "result") {
-      const done = pending.get(msg.id);
-      if (done) { pending.delete(msg.id); done(msg.out); }
-    }
-  };
-  worker.onerror = (event) => {
-    event.preventDefault();
-    setStage("failed", event.message || "worker error");
-  };
-  return worker;
-}
-
-// Run one calculation in the worker: resolves to {ok, result} or {ok: false, error}.
-export function calculate(name, request) {
-  const w = startWorker();
-  if (!w) {
-    return Promise.resolve({ ok: false, error: { field: "runtime", message: "The calculator needs the site to be served over HTTP (see the notice above)." } });
-  }
-  const id = ++seq;
-  return new Promise((resolve) => {
-    pending.set(id, resolve);
-    w.postMessage({ id, name, request });
-  });
-}
-
-let datasetPromise = null;
-export function dataset() {
-  if (!datasetPromise) {
-    datasetPromise = fetch(new URL("assets/data/dataset.json", siteRoot)).then((r) => {
-      if (!r.ok) throw new Error("dataset.json: HTTP " + r.status);
-      return r.json();
-    });
-  }
-  return datasetPromise;
-}
-
-// Tiny DOM builder: text children become text nodes, never HTML.
-export function h(tag, attrs, ...children) {
-  const el = document.createElement(tag);
-  for (const [k, v] of Object.entries(attrs || {})) {
-    if (v === null || v === undefined || v === false) continue;
-    if (k === "class") el.className = v;
-    else if (k === "text") el.textContent = v;
-    else if (k.startsWith("on") && typeof v === "function") el.addEventListener(k.slice(2), v);
-    else el.setAttribute(k, v === true ? "" : String(v));
-  }
-  for (const c of children.flat()) {
-    if (c === null || c === undefined || c === false) continue;
-    el.append(c instanceof Node ? c : document.createTextNode(String(c)));
-  }
-  return el;
-}
+// For tests and benchmarks that drive the worker from a page (the same worker the page uses).
+export { calculate } from "./site.mjs";
 
 function initPage() {
   startWorker();
@@ -97,12 +15,16 @@ function initPage() {
     if (root.dataset.cwBound) continue;
     root.dataset.cwBound = "1";
     if (!servedOverHttp()) continue; // file://: file-pages.js (a classic script) shows the notice
-    const setup = CALCULATORS[root.dataset.cwCalc];
+    const name = root.dataset.cwCalc;
+    const setup = loadCalculator(name);
     if (!setup) {
-      root.replaceChildren(h("p", { class: "cw-error", text: "Unknown calculator: " + root.dataset.cwCalc }));
+      root.replaceChildren(h("p", { class: "cw-error", text: "Unknown calculator: " + name }));
       continue;
     }
-    setup(root).catch((err) => {
+    root.prepend(runtimeStatus());
+    dataset().catch(() => {}); // fetched while the calculator's module loads; errors show below
+    spec().catch(() => {});
+    setup.then((run) => run(root)).catch((err) => {
       root.append(h("p", { class: "cw-error", role: "alert", text: "This calculator could not start: " + String(err && err.message ? err.message : err) }));
     });
   }

@@ -1,16 +1,15 @@
-// Site readings: two calculators over calc.fieldcheck.
+// Site readings: two calculators over calc.field.
 //   measured: a joint judged from the two parts' potentials measured on site (entry "measured");
 //   cp:       one cathodic-protection reading against the published criteria (entry "cp").
 // They share a page, so their field ids and URL parameters carry a prefix of their own, and each
-// writes only its own parameters. Imported by calculators.mjs (circular import): bindings from
-// calculators.mjs are used only inside functions, never at module evaluation.
-import { dataset, h } from "./couplewise.mjs";
+// writes only its own parameters. The CP pieces are shared with the survey log (survey.mjs).
+import { bindForm, runner } from "./runner.mjs";
 import {
-  derivation, field, fill, fmt, frame, materialOptions, numberInput, readNumber, runner, select, signed,
-  sourceLink, sourcesLine, verdictBadge, warningsList,
-} from "./calculators.mjs";
+  allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
+  known, materialOptions, numberInput, readInto, select, signed, sourceLink, sourcesLine, verdictBadge, warningsList,
+} from "./ui.mjs";
 
-// Names of the structures and settings of calc.fieldcheck (STRUCTURES, SETTINGS); a test keeps
+// Names of the structures and settings (data/cp_structures.yaml, cp_settings.yaml); a test keeps
 // the two in step.
 export const STRUCTURE_NAMES = {
   "carbon-steel": "Carbon steel (C-Mn and low-alloy, yield strength up to 550 MPa)",
@@ -83,17 +82,6 @@ function ownParams(prefix) {
   };
 }
 
-function cautionsBox(cautions) {
-  if (!cautions || !cautions.length) return null;
-  return h("div", { class: "admonition warning" }, h("p", { class: "admonition-title", text: "Cautions" }),
-    h("ul", {}, cautions.map((c) => h("li", { text: c }))));
-}
-
-function assumptionsBox(items) {
-  if (!items || !items.length) return null;
-  return h("details", { class: "cw-assumptions" }, h("summary", { text: "Assumptions" }), h("ul", {}, items.map((a) => h("li", { text: a }))));
-}
-
 // ---------------------------------------------------------------------------------------
 // Measured joint.
 
@@ -101,9 +89,8 @@ function assumptionsBox(items) {
 // a quiet dock, both are read on their own against a silver/silver-chloride seawater cell.
 const MEASURED_START = { a: "sheet pile", av: "-0.680", b: "ladder", bv: "-0.120", el: AGAGCL_SW, t: "14", env: "seawater-quiescent", s: "", am: "carbon-steel", bm: "stainless-316-passive" };
 
-async function measuredCalc(root) {
-  const ui = frame(root, "Measured joint");
-  const ds = await dataset();
+export async function measured(root) {
+  const { ui, ds, sp } = await begin(root, "Measured joint", "measured");
   const url = ownParams("m.");
   const get = (k) => url.get(k) ?? MEASURED_START[k];
   const elIds = new Set(ds.reference_electrodes.map((r) => r.id));
@@ -114,9 +101,9 @@ async function measuredCalc(root) {
   const aRead = field("cw-m-av", "First part: reading (V)", numberInput(get("av")), "as read on the meter, against the electrode below");
   const bName = field("cw-m-b", "Second part", h("input", { type: "text", autocomplete: "off", value: get("b"), maxlength: "100" }), "a label, e.g. ladder");
   const bRead = field("cw-m-bv", "Second part: reading (V)", numberInput(get("bv")), "against the same electrode");
-  const elField = field("cw-m-el", "Reference electrode", select(electrodeOptions(ds), elIds.has(get("el")) ? get("el") : MEASURED_START.el));
-  const tField = field("cw-m-t", "Electrode temperature (°C)", numberInput(get("t")), "0 to 100 °C");
-  const envField = field("cw-m-env", "Environment", select(ds.environments.map((e) => ({ value: e.id, label: e.name })), envIds.has(get("env")) ? get("env") : MEASURED_START.env));
+  const elField = field("cw-m-el", "Reference electrode", select(electrodeOptions(ds), known(elIds, get("el"), MEASURED_START.el)));
+  const tField = field("cw-m-t", "Electrode temperature (°C)", numberInput(get("t")), hint(sp, "temp_C"));
+  const envField = field("cw-m-env", "Environment", select(environmentOptions(ds), known(envIds, get("env"), MEASURED_START.env)));
   const sField = field("cw-m-s", "Salinity (g/kg)", numberInput(get("s")), "for the Ag/AgCl seawater electrode in brackish water; empty for full-strength seawater (35)");
   const amField = field("cw-m-am", "First part: material (optional)", select(matOpts, matIds.has(get("am")) ? get("am") : (url.get("am") === "-" ? "" : MEASURED_START.am)));
   const bmField = field("cw-m-bm", "Second part: material (optional)", select(matOpts, matIds.has(get("bm")) ? get("bm") : (url.get("bm") === "-" ? "" : MEASURED_START.bm)));
@@ -134,15 +121,12 @@ async function measuredCalc(root) {
       if (!v) { f.setError("Enter " + what + "."); bad = true; } else { f.setError(""); req[key] = v; }
     }
     for (const [f, key] of [[aRead, "a_reading_V"], [bRead, "b_reading_V"]]) {
-      const r = readNumber(f.control, { min: -10, max: 10, allowed: "a reading from −10 to +10 V" });
-      f.setError(r.error); if (r.error) bad = true; else req[key] = r.value;
+      bad = readInto(f, req, key, allowed(sp, "reading_V", "a reading in volts")) || bad;
     }
-    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
-    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
+    bad = readInto(tField, req, "temp_C", allowed(sp, "temp_C", "a temperature")) || bad;
     sField.el.hidden = req.electrode !== AGAGCL_SW;
     if (!sField.el.hidden && sField.control.value.trim() !== "") {
-      const s = readNumber(sField.control, { positive: true, max: 45, allowed: "a salinity above 0 and up to 45 g/kg" });
-      sField.setError(s.error); if (s.error) bad = true; else req.salinity = s.value;
+      bad = readInto(sField, req, "salinity", allowed(sp, "salinity", "a salinity")) || bad;
     } else sField.setError("");
     if (amField.control.value) req.a_material = amField.control.value;
     if (bmField.control.value) req.b_material = bmField.control.value;
@@ -151,10 +135,8 @@ async function measuredCalc(root) {
       ["s", sField.el.hidden ? "" : sField.control.value.trim()], ["am", amField.control.value || "-"], ["bm", bmField.control.value || "-"]]);
     return { req, bad };
   }
-  function fieldFor(name) {
-    return { a_name: aName, a_reading_V: aRead, b_name: bName, b_reading_V: bRead, electrode: elField, temp_C: tField,
-      env: envField, salinity: sField, a_material: amField, b_material: bmField }[name] || null;
-  }
+  const fieldFor = fieldMap({ a_name: aName, a_reading_V: aRead, b_name: bName, b_reading_V: bRead, electrode: elField,
+    temp_C: tField, env: envField, salinity: sField, a_material: amField, b_material: bmField });
   function render(r) {
     const pub = r.published;
     const rows = [
@@ -183,12 +165,7 @@ async function measuredCalc(root) {
       states.length ? h("details", { class: "cw-states", open: true }, h("summary", { text: "Passive and active states" }), h("ul", {}, states)) : null,
       assumptionsBox(r.assumptions), derivation(r.steps), cautionsBox(r.cautions), sourcesLine(r.sources, r.data_version));
   }
-  const run = runner(ui, "measured", render, fieldFor);
-  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
-  ui.formBox.addEventListener("input", changed);
-  ui.formBox.addEventListener("change", changed);
-  const first = collect();
-  run.now(first.req, first.bad);
+  bindForm(ui, runner(ui, "measured", render, fieldFor), collect);
 }
 
 // ---------------------------------------------------------------------------------------
@@ -228,20 +205,19 @@ export function cpResultNodes(r) {
   ];
 }
 
-async function cpCalc(root) {
-  const ui = frame(root, "CP reading");
-  const ds = await dataset();
+export async function cp(root) {
+  const { ui, ds, sp } = await begin(root, "CP reading", "cp");
   const url = ownParams("c.");
   const get = (k) => url.get(k) ?? CP_START[k];
   const elIds = new Set(ds.reference_electrodes.map((r) => r.id));
   const stOpts = structureOptions(ds);
-  const stField = field("cw-c-st", "Structure", select(stOpts, stOpts.some((o) => o.value === get("st")) ? get("st") : CP_START.st));
+  const stField = field("cw-c-st", "Structure", select(stOpts, known(new Set(stOpts.map((o) => o.value)), get("st"), CP_START.st)));
   const setField = field("cw-c-set", "Setting", select([], ""));
   fillSelect(setField.control, settingOptions(ds, stField.control.value), get("set"));
   const vField = field("cw-c-v", "Reading (V)", numberInput(get("v")), "structure-to-electrolyte potential as read, e.g. −0.870");
-  const elField = field("cw-c-el", "Reference electrode", select(electrodeOptions(ds), elIds.has(get("el")) ? get("el") : CP_START.el));
-  const kField = field("cw-c-k", "Reading taken", select(KIND_OPTIONS, KIND_OPTIONS.some((o) => o.value === get("k")) ? get("k") : CP_START.k));
-  const tField = field("cw-c-t", "Electrode temperature (°C)", numberInput(get("t")), "0 to 100 °C");
+  const elField = field("cw-c-el", "Reference electrode", select(electrodeOptions(ds), known(elIds, get("el"), CP_START.el)));
+  const kField = field("cw-c-k", "Reading taken", select(KIND_OPTIONS, known(new Set(KIND_OPTIONS.map((o) => o.value)), get("k"), CP_START.k)));
+  const tField = field("cw-c-t", "Electrode temperature (°C)", numberInput(get("t")), hint(sp, "temp_C"));
   const tsField = field("cw-c-tst", "Structure temperature (°C, optional)", numberInput(get("tst")), "empty: the electrode's; matters above 40 °C");
   const pField = field("cw-c-p", "Polarisation shift (mV, optional)", numberInput(get("p")), "instant-off minus depolarised potential, for the 100 mV criterion");
   const sField = field("cw-c-s", "Salinity (g/kg)", numberInput(get("s")), "Ag/AgCl seawater electrode in brackish water; empty for seawater (35)");
@@ -251,39 +227,25 @@ async function cpCalc(root) {
   function collect() {
     let bad = false;
     const req = { structure: stField.control.value, setting: setField.control.value, electrode: elField.control.value, reading_kind: kField.control.value };
-    const v = readNumber(vField.control, { min: -10, max: 10, allowed: "a reading from −10 to +10 V" });
-    vField.setError(v.error); if (v.error) bad = true; else req.reading_V = v.value;
-    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
-    tField.setError(t.error); if (t.error) bad = true; else req.temp_C = t.value;
-    for (const [f, key, opts] of [[tsField, "structure_temp_C", { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C, or empty" }],
-      [pField, "polarisation_mV", { min: 0, max: 2000, allowed: "a shift from 0 to 2000 mV, or empty" }]]) {
+    bad = readInto(vField, req, "reading_V", allowed(sp, "reading_V", "a reading in volts")) || bad;
+    bad = readInto(tField, req, "temp_C", allowed(sp, "temp_C", "a temperature")) || bad;
+    for (const [f, key, noun] of [[tsField, "structure_temp_C", "a temperature"], [pField, "polarisation_mV", "a shift in mV"]]) {
       if (f.control.value.trim() === "") { f.setError(""); continue; }
-      const x = readNumber(f.control, opts);
-      f.setError(x.error); if (x.error) bad = true; else req[key] = x.value;
+      bad = readInto(f, req, key, allowed(sp, key, noun)) || bad;
     }
     sField.el.hidden = req.electrode !== AGAGCL_SW;
     if (!sField.el.hidden && sField.control.value.trim() !== "") {
-      const s = readNumber(sField.control, { positive: true, max: 45, allowed: "a salinity above 0 and up to 45 g/kg" });
-      sField.setError(s.error); if (s.error) bad = true; else req.salinity = s.value;
+      bad = readInto(sField, req, "salinity", allowed(sp, "salinity", "a salinity")) || bad;
     } else sField.setError("");
     url.write([["st", req.structure], ["set", req.setting], ["v", vField.control.value.trim()], ["el", req.electrode], ["k", req.reading_kind],
       ["t", tField.control.value.trim()], ["tst", tsField.control.value.trim()], ["p", pField.control.value.trim()], ["s", sField.el.hidden ? "" : sField.control.value.trim()]]);
     return { req, bad };
   }
-  function fieldFor(name) {
-    return { structure: stField, setting: setField, reading_V: vField, electrode: elField, reading_kind: kField, temp_C: tField,
-      structure_temp_C: tsField, polarisation_mV: pField, salinity: sField, chloride_mg_per_L: sField }[name] || null;
-  }
+  const fieldFor = fieldMap({ structure: stField, setting: setField, reading_V: vField, electrode: elField, reading_kind: kField,
+    temp_C: tField, structure_temp_C: tsField, polarisation_mV: pField, salinity: sField, chloride_mg_per_L: sField });
   function render(r) {
     fill(ui.result, ...cpResultNodes(r), assumptionsBox(r.assumptions), derivation(r.steps), cautionsBox(r.cautions), sourcesLine(r.sources, r.data_version));
   }
-  const run = runner(ui, "cp", render, fieldFor);
-  function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
   stField.control.addEventListener("change", () => fillSelect(setField.control, settingOptions(ds, stField.control.value), setField.control.value));
-  ui.formBox.addEventListener("input", changed);
-  ui.formBox.addEventListener("change", changed);
-  const first = collect();
-  run.now(first.req, first.bad);
+  bindForm(ui, runner(ui, "cp", render, fieldFor), collect);
 }
-
-export const FIELD_CALCULATORS = { measured: measuredCalc, cp: cpCalc };

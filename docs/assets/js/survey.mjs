@@ -7,236 +7,27 @@
 // leaves the device unless the user exports it (CSV or JSON); a JSON export can be imported
 // again (merged by the readings' ids, so nothing is doubled).
 //
-// Imported by calculators.mjs (circular import): bindings from calculators.mjs and field.mjs
-// are used only inside functions.
-import { calculate, dataset, h } from "./couplewise.mjs";
-import { field, fill, frame, numberInput, readNumber, select, signed } from "./calculators.mjs";
+// A number field is refused here when it is not a number, or when it lies outside calc's bound
+// (spec.json), which is the check every record of the log passes (recordProblem), imported too;
+// calc then judges the reading, and its refusal is shown at the field it names.
+import { calculate } from "./site.mjs";
 import {
   AGAGCL_SW, KIND_OPTIONS, SETTING_NAMES, STRUCTURE_NAMES, cpBadge, cpResultNodes, electrodeOptions, fillSelect,
   settingOptions, structureOptions,
 } from "./field.mjs";
-
-export const DB_NAME = "couplewise-survey";
-export const STORE = "readings";
-const DB_VERSION = 1;
-export const FORMAT = "couplewise-survey-log";
-export const FORMAT_VERSION = 1;
-const DRAFT_KEY = "couplewise-survey-draft";
-const VERDICTS = ["protected", "not protected", "over-protected"];
-const UNITS = {
-  reading_V: "V, against the electrode named in the record",
-  temp_C: "°C (electrode temperature)",
-  polarisation_mV: "mV",
-  salinity: "g/kg",
-  time: "local date and time as entered (ISO 8601, no time zone)",
-  saved_at: "UTC (ISO 8601)",
-};
-
-// ---------------------------------------------------------------------------------------
-// Storage
-
-export function openDb() {
-  return new Promise((resolve, reject) => {
-    let req;
-    try { req = indexedDB.open(DB_NAME, DB_VERSION); } catch (err) { reject(err); return; }
-    req.onupgradeneeded = () => {
-      const db = req.result;
-      if (!db.objectStoreNames.contains(STORE)) db.createObjectStore(STORE, { keyPath: "id" });
-    };
-    req.onsuccess = () => {
-      const db = req.result;
-      db.onversionchange = () => db.close();
-      resolve(db);
-    };
-    req.onerror = () => reject(req.error);
-    req.onblocked = () => reject(new Error("the log is open in an older version of this page in another tab"));
-  });
-}
-
-// One transaction; resolves when it has completed (committed), rejects when it fails.
-function transact(db, mode, work) {
-  return new Promise((resolve, reject) => {
-    let tx;
-    try { tx = db.transaction(STORE, mode, { durability: "strict" }); } catch (err) { reject(err); return; }
-    let value;
-    tx.oncomplete = () => resolve(value);
-    tx.onerror = () => reject(tx.error);
-    tx.onabort = () => reject(tx.error || new Error("the write was aborted"));
-    try { work(tx.objectStore(STORE), (v) => { value = v; }); } catch (err) { tx.abort(); reject(err); }
-  });
-}
-
-export function putRecord(db, rec) { return transact(db, "readwrite", (st) => st.put(rec)); }
-export function allRecords(db) {
-  return transact(db, "readonly", (st, done) => { const r = st.getAll(); r.onsuccess = () => done(r.result); });
-}
-export function clearRecords(db) { return transact(db, "readwrite", (st) => st.clear()); }
-
-// Add the records whose ids are not stored yet; resolves to {added, present}.
-export function mergeRecords(db, recs) {
-  return transact(db, "readwrite", (st, done) => {
-    const counts = { added: 0, present: 0 };
-    done(counts);
-    for (const rec of recs) {
-      const g = st.get(rec.id);
-      g.onsuccess = () => {
-        if (g.result) counts.present++;
-        else { st.add(rec); counts.added++; }
-      };
-    }
-  });
-}
-
-export function newId() {
-  if (crypto.randomUUID) return crypto.randomUUID();
-  const b = crypto.getRandomValues(new Uint8Array(16)); // insecure contexts (plain-HTTP intranet) lack randomUUID
-  b[6] = (b[6] & 0x0f) | 0x40; b[8] = (b[8] & 0x3f) | 0x80;
-  const x = [...b].map((v) => v.toString(16).padStart(2, "0")).join("");
-  return x.slice(0, 8) + "-" + x.slice(8, 12) + "-" + x.slice(12, 16) + "-" + x.slice(16, 20) + "-" + x.slice(20);
-}
-
-export function localNow() {
-  const d = new Date();
-  d.setMinutes(d.getMinutes() - d.getTimezoneOffset());
-  return d.toISOString().slice(0, 16);
-}
-
-// ---------------------------------------------------------------------------------------
-// Records: what one reading holds, and the check every stored or imported record passes.
-
-const TIME_RE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,3})?)?$/;
-const ID_RE = /^[A-Za-z0-9-]{8,64}$/;
-const isNum = (x) => typeof x === "number" && Number.isFinite(x);
-const isText = (x, max, empty = false) => typeof x === "string" && x.length <= max && (empty || x.trim() !== "");
-
-// Returns null for a valid record, else the first problem in words.
-export function recordProblem(r) {
-  if (!r || typeof r !== "object" || Array.isArray(r)) return "not a record";
-  if (!isText(r.id, 64) || !ID_RE.test(r.id)) return "id: expected 8 to 64 letters, digits or hyphens";
-  if (!isText(r.location, 200)) return "location: expected a label of 1 to 200 characters";
-  if (!isText(r.time, 40) || !TIME_RE.test(r.time) || Number.isNaN(Date.parse(r.time))) return "time: expected a date and time such as 2024-05-01T14:30";
-  if (!isNum(r.reading_V) || Math.abs(r.reading_V) > 10) return "reading_V: expected a number from −10 to +10";
-  if (!isText(r.electrode, 80)) return "electrode: expected an electrode id";
-  if (!isNum(r.temp_C) || r.temp_C < 0 || r.temp_C > 100) return "temp_C: expected 0 to 100";
-  if (!isText(r.structure, 80) || !isText(r.setting, 80)) return "structure and setting: expected ids";
-  if (r.reading_kind !== "on" && r.reading_kind !== "instant-off") return "reading_kind: expected on or instant-off";
-  if (r.polarisation_mV !== null && (!isNum(r.polarisation_mV) || r.polarisation_mV < 0 || r.polarisation_mV > 2000)) return "polarisation_mV: expected 0 to 2000 or null";
-  if (r.salinity !== null && (!isNum(r.salinity) || r.salinity <= 0 || r.salinity > 45)) return "salinity: expected above 0 up to 45, or null";
-  if (!isText(r.notes, 2000, true)) return "notes: expected text of at most 2000 characters";
-  if (!isText(r.saved_at, 40) || Number.isNaN(Date.parse(r.saved_at))) return "saved_at: expected a date";
-  const j = r.judgement;
-  if (j !== null) {
-    if (!j || typeof j !== "object") return "judgement: expected an object or null";
-    if (!VERDICTS.includes(j.verdict) || typeof j.conclusive !== "boolean" || !isText(j.text, 5000) || !isText(j.label, 200) || !isText(j.data_version, 64)) return "judgement: incomplete";
-    if (!Array.isArray(j.criteria) || !Array.isArray(j.warnings)) return "judgement: incomplete";
-  }
-  const known = new Set(["id", "location", "time", "reading_V", "electrode", "temp_C", "structure", "setting", "reading_kind",
-    "polarisation_mV", "salinity", "notes", "saved_at", "judgement"]);
-  for (const k of Object.keys(r)) if (!known.has(k)) return "unknown field " + k;
-  return null;
-}
-
-export function requestOf(rec) {
-  const req = { structure: rec.structure, setting: rec.setting, reading_V: rec.reading_V, electrode: rec.electrode,
-    temp_C: rec.temp_C, reading_kind: rec.reading_kind };
-  if (rec.polarisation_mV !== null) req.polarisation_mV = rec.polarisation_mV;
-  if (rec.salinity !== null) req.salinity = rec.salinity;
-  return req;
-}
-
-// The part of a calc result kept with the reading (the derivation is re-made on demand).
-export function judgementOf(r) {
-  return {
-    verdict: r.verdict, conclusive: r.conclusive, label: r.verdict_label, text: r.verdict_text,
-    criteria: (r.criteria || []).filter((c) => c.role !== "not checked").map((c) => ({
-      id: c.id, name: c.name, standard: c.standard, clause: c.clause, role: c.role,
-      value: c.role === "polarisation" ? c.value_mV : c.value_V, electrode: c.electrode || null,
-      result: c.role === "limit" ? (c.exceeded ? "beyond" : "within") : (c.met === null || c.met === undefined ? "not checked" : (c.met ? "met" : "not met")),
-    })),
-    warnings: (r.warnings || []).map((w) => w.message),
-    data_version: r.data_version,
-  };
-}
-
-function sortLog(recs) {
-  return recs.sort((a, b) => (b.saved_at > a.saved_at ? 1 : b.saved_at < a.saved_at ? -1 : (b.id > a.id ? 1 : -1)));
-}
-
-// ---------------------------------------------------------------------------------------
-// Export
-
-export function exportJson(recs, dataVersion) {
-  return JSON.stringify({
-    format: FORMAT, format_version: FORMAT_VERSION, exported_at: new Date().toISOString(),
-    data_version: dataVersion, units: UNITS, count: recs.length, records: recs,
-  }, null, 1);
-}
-
-function csvCell(v, text) {
-  if (v === null || v === undefined) return "";
-  let s = String(v);
-  if (text && /^[=+\-@\t\r]/.test(s)) s = "'" + s; // a spreadsheet must not read a note as a formula
-  return /[",\r\n]/.test(s) ? '"' + s.replace(/"/g, '""') + '"' : s;
-}
-
-export function exportCsv(recs, dataVersion) {
-  const head = ["id", "time", "location", "reading_V", "electrode", "reading_kind", "temp_C", "structure", "setting",
-    "polarisation_mV", "salinity_g_per_kg", "verdict", "conclusive", "verdict_text", "notes", "data_version", "saved_at"];
-  const lines = [
-    "# Couplewise survey log; exported " + new Date().toISOString() + "; data version " + dataVersion,
-    "# units: reading_V in V against the electrode of the row; temp_C in °C (electrode); polarisation_mV in mV; salinity in g/kg; time local as entered; saved_at UTC",
-    head.join(","),
-  ];
-  for (const r of recs) {
-    const j = r.judgement;
-    lines.push([
-      csvCell(r.id), csvCell(r.time), csvCell(r.location, true), csvCell(r.reading_V), csvCell(r.electrode, true),
-      csvCell(r.reading_kind), csvCell(r.temp_C), csvCell(r.structure), csvCell(r.setting), csvCell(r.polarisation_mV),
-      csvCell(r.salinity), csvCell(j ? j.verdict : "not judged"), csvCell(j ? j.conclusive : ""), csvCell(j ? j.text : "", true),
-      csvCell(r.notes, true), csvCell(j ? j.data_version : ""), csvCell(r.saved_at),
-    ].join(","));
-  }
-  return lines.join("\r\n") + "\r\n";
-}
-
-// Parse an exported JSON log: {records, problems} (records valid, problems in words).
-export function parseImport(text) {
-  let doc;
-  try { doc = JSON.parse(text); } catch (err) { return { records: [], problems: ["the file is not JSON: " + err.message] }; }
-  if (!doc || doc.format !== FORMAT || !Array.isArray(doc.records)) {
-    return { records: [], problems: ["the file is not a Couplewise survey log (format " + FORMAT + ")"] };
-  }
-  if (doc.format_version !== FORMAT_VERSION) return { records: [], problems: ["format version " + doc.format_version + " is not " + FORMAT_VERSION] };
-  const records = [], problems = [], seen = new Set();
-  let repeated = 0;
-  doc.records.forEach((r, i) => {
-    const p = recordProblem(r);
-    if (p) problems.push("record " + (i + 1) + ": " + p);
-    else if (seen.has(r.id)) repeated++; // the same reading twice in one file: kept once
-    else { seen.add(r.id); records.push(r); }
-  });
-  return { records, problems, repeated };
-}
-
-function download(name, type, text) {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = h("a", { href: url, download: name, class: "cw-hidden-link" });
-  document.body.append(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 60_000);
-}
-
-function stamp() { return localNow().replace(/[-:]/g, "").replace("T", "-"); }
-
-// ---------------------------------------------------------------------------------------
-// The page
+import {
+  DRAFT_KEY, TIME_RE, allRecords, clearRecords, download, exportCsv, exportJson, judgementOf, localNow, mergeRecords,
+  newId, openDb, parseImport, putRecord, recordProblem, requestOf, sortLog, stamp, withinBound,
+} from "./surveylog.mjs";
+import {
+  allowed, begin, field, fieldMap, fill, h, hint, known, numberInput, readNumber, select, signed,
+} from "./ui.mjs";
 
 const SURVEY_START = { el: "CSE", t: "15", st: "carbon-steel", set: "soil-aerobic", k: "instant-off" };
 
-async function surveyCalc(root) {
-  const ui = frame(root, "Survey log");
-  const ds = await dataset();
+export async function survey(root) {
+  const { ui, ds, sp } = await begin(root, "Survey log", "survey");
+  const bounds = sp.bounds || {};
   let draft = {};
   try { draft = JSON.parse(localStorage.getItem(DRAFT_KEY) || "{}") || {}; } catch (err) { draft = {}; }
   const d = (k, dflt) => (typeof draft[k] === "string" ? draft[k] : dflt);
@@ -246,10 +37,10 @@ async function surveyCalc(root) {
   const locField = field("cw-s-loc", "Location", h("input", { type: "text", autocomplete: "off", maxlength: "200", value: d("loc", "") }), "test post, pile or chainage, e.g. TP 14");
   const timeField = field("cw-s-time", "Time", h("input", { type: "datetime-local", value: d("time", localNow()) }), "local time; now by default");
   const vField = field("cw-s-v", "Reading (V)", numberInput(d("v", "")), "as read on the meter, e.g. −0.912");
-  const elField = field("cw-s-el", "Reference electrode", select(electrodeOptions(ds), elIds.has(d("el")) ? d("el") : SURVEY_START.el));
+  const elField = field("cw-s-el", "Reference electrode", select(electrodeOptions(ds), known(elIds, d("el"), SURVEY_START.el)));
   const kField = field("cw-s-k", "Reading taken", select(KIND_OPTIONS, d("k", SURVEY_START.k)));
-  const tField = field("cw-s-t", "Electrode temperature (°C)", numberInput(d("t", SURVEY_START.t)), "0 to 100 °C");
-  const stField = field("cw-s-st", "Structure", select(stOpts, stOpts.some((o) => o.value === d("st")) ? d("st") : SURVEY_START.st));
+  const tField = field("cw-s-t", "Electrode temperature (°C)", numberInput(d("t", SURVEY_START.t)), hint(sp, "temp_C"));
+  const stField = field("cw-s-st", "Structure", select(stOpts, known(new Set(stOpts.map((o) => o.value)), d("st"), SURVEY_START.st)));
   const setField = field("cw-s-set", "Setting", select([], ""));
   fillSelect(setField.control, settingOptions(ds, stField.control.value), d("set", SURVEY_START.set));
   const pField = field("cw-s-p", "Polarisation shift (mV, optional)", numberInput(d("p", "")), "for the 100 mV criterion");
@@ -328,7 +119,7 @@ async function surveyCalc(root) {
   async function reload() {
     if (!db) return;
     const all = await allRecords(db);
-    records = all.filter((r) => recordProblem(r) === null);
+    records = all.filter((r) => recordProblem(r, bounds) === null);
     if (records.length < all.length) {
       toolsMsg.textContent = (all.length - records.length) + " stored record(s) could not be read and are not shown; they stay stored.";
     }
@@ -342,35 +133,34 @@ async function surveyCalc(root) {
     set(locField, loc ? "" : "Enter where the reading was taken (a label of 1 to 200 characters).");
     const time = timeField.control.value;
     set(timeField, time && TIME_RE.test(time) && !Number.isNaN(Date.parse(time)) ? "" : "Enter the date and time of the reading.");
-    const v = readNumber(vField.control, { min: -10, max: 10, allowed: "a reading from −10 to +10 V" });
-    set(vField, v.error);
-    const t = readNumber(tField.control, { min: 0, max: 100, allowed: "a temperature from 0 to 100 °C" });
-    set(tField, t.error);
+    // a number within the record's bound, else null (with the message at the field)
+    const num = (f, key, noun) => {
+      const x = readNumber(f.control, allowed(sp, key, noun));
+      const msg = x.error || (withinBound(x.value, bounds[key]) ? "" : "Out of range: " + allowed(sp, key, noun) + ".");
+      set(f, msg);
+      return msg ? null : x.value;
+    };
+    const reading = num(vField, "reading_V", "a reading in volts");
+    const temp = num(tField, "temp_C", "a temperature");
     let pol = null;
-    if (pField.control.value.trim() !== "") {
-      const p = readNumber(pField.control, { min: 0, max: 2000, allowed: "a shift from 0 to 2000 mV, or empty" });
-      set(pField, p.error); pol = p.error ? null : p.value;
-    } else pField.setError("");
+    if (pField.control.value.trim() !== "") pol = num(pField, "polarisation_mV", "a shift in mV");
+    else pField.setError("");
     let sal = null;
     sField.el.hidden = elField.control.value !== AGAGCL_SW;
-    if (!sField.el.hidden && sField.control.value.trim() !== "") {
-      const s = readNumber(sField.control, { positive: true, max: 45, allowed: "a salinity above 0 and up to 45 g/kg, or empty" });
-      set(sField, s.error); sal = s.error ? null : s.value;
-    } else sField.setError("");
+    if (!sField.el.hidden && sField.control.value.trim() !== "") sal = num(sField, "salinity", "a salinity");
+    else sField.setError("");
     set(setField, setField.control.value ? "" : "Choose a setting.");
     const notes = notesField.control.value;
     set(notesField, notes.length <= 2000 ? "" : "Notes: at most 2000 characters.");
     if (bad) return { bad };
     return { bad, rec: {
-      id: newId(), location: loc, time, reading_V: v.value, electrode: elField.control.value, temp_C: t.value,
+      id: newId(), location: loc, time, reading_V: reading, electrode: elField.control.value, temp_C: temp,
       structure: stField.control.value, setting: setField.control.value, reading_kind: kField.control.value,
       polarisation_mV: pol, salinity: sal, notes, saved_at: "", judgement: null } };
   }
 
-  function fieldFor(name) {
-    return { reading_V: vField, electrode: elField, temp_C: tField, structure: stField, setting: setField, reading_kind: kField,
-      polarisation_mV: pField, salinity: sField }[name] || null;
-  }
+  const fieldFor = fieldMap({ reading_V: vField, electrode: elField, temp_C: tField, structure: stField, setting: setField,
+    reading_kind: kField, polarisation_mV: pField, salinity: sField });
 
   let busy = false;
   async function add() {
@@ -398,7 +188,7 @@ async function surveyCalc(root) {
         return;
       }
       rec.saved_at = new Date().toISOString();
-      const problem = recordProblem(rec);
+      const problem = recordProblem(rec, bounds);
       if (problem) { ui.formMsg.textContent = "Not saved: " + problem; saved.textContent = ""; return; }
       try {
         await putRecord(db, rec);
@@ -441,7 +231,7 @@ async function surveyCalc(root) {
     toolsMsg.textContent = "Reading " + file.name + "…";
     let text;
     try { text = await file.text(); } catch (err) { importField.setError("The file could not be read: " + err.message); toolsMsg.textContent = ""; return; }
-    const { records: recs, problems, repeated } = parseImport(text);
+    const { records: recs, problems, repeated } = parseImport(text, bounds);
     if (!recs.length) {
       importField.setError("Nothing imported: " + (problems[0] || "the file holds no readings") + ".");
       toolsMsg.textContent = "";
@@ -502,5 +292,3 @@ async function surveyCalc(root) {
     renderLog();
   }
 }
-
-export const SURVEY_CALCULATORS = { survey: surveyCalc };

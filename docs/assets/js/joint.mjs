@@ -1,0 +1,118 @@
+// Joint: two materials in a named environment; the decision, what to do, and where the pair sits
+// in the galvanic series.
+import { siteRoot } from "./site.mjs";
+import { bindForm, runner } from "./runner.mjs";
+import {
+  allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
+  known, materialOptions, numberInput, readInto, select, sourceLink, sourcesLine, verdictBadge, warningsList, writeUrl,
+} from "./ui.mjs";
+
+// The galvanic series chart (made at build time) as a page node: fetched and parsed once per
+// page; each joint calculator keeps one copy and only changes which bars are highlighted.
+let seriesSvgPromise = null;
+function seriesSvgTemplate() {
+  if (!seriesSvgPromise) {
+    seriesSvgPromise = (async () => {
+      const r = await fetch(new URL("reference/galvanic-series.svg", siteRoot));
+      const text = r.ok ? await r.text() : "";
+      if (!text) return null;
+      const svg = new DOMParser().parseFromString(text, "image/svg+xml").documentElement;
+      if (svg.nodeName !== "svg") return null;
+      svg.removeAttribute("width"); svg.removeAttribute("height");
+      svg.classList.add("cw-series-inline");
+      return document.importNode(svg, true);
+    })().catch(() => null);
+  }
+  return seriesSvgPromise;
+}
+
+function seriesChartView() {
+  let node = null;
+  return async function show(highlight) {
+    if (!node) {
+      const template = await seriesSvgTemplate();
+      if (!template) return null;
+      node = template.cloneNode(true);
+    }
+    for (const g of node.querySelectorAll("[data-material]")) {
+      const on = highlight.includes(g.getAttribute("data-material"));
+      g.classList.toggle("cw-hl", on);
+      g.classList.toggle("cw-dim", !on);
+    }
+    return node;
+  };
+}
+
+function statesTable(states) {
+  const rows = states.map((st) => h("tr", {},
+    h("td", { text: st.a }), h("td", { text: st.b }), h("td", { text: st.anode || "—" }),
+    h("td", { text: fmt(st.delta_E_V, 3) }), h("td", { text: (st.delta_E_range_V || []).map((v) => fmt(v, 3)).join(" to ") }), h("td", {}, verdictBadge(st.verdict))));
+  if (rows.length <= 1) return null;
+  return h("details", { class: "cw-states", open: true }, h("summary", { text: "Passive and active states compared" }),
+    h("table", {}, h("thead", {}, h("tr", {}, ["First", "Second", "Anode", "ΔE (V)", "range (V)", "verdict"].map((t) => h("th", { text: t })))), h("tbody", {}, rows)));
+}
+
+function adviceNodes(r) {
+  return [
+    h("h3", { text: "What to do" }),
+    h("ul", { class: "cw-mitigations" }, (r.mitigations || []).map((m) => h("li", {}, h("strong", { text: m.text }), h("br"), h("span", { class: "cw-reason", text: "Why here: " + m.reason })))),
+    h("h3", { text: "Closer-matched materials" }),
+    ...(r.alternatives || []).map((alt) => h("details", { class: "cw-alts" }, h("summary", { text: alt.text + " (" + alt.count + " pass)" }),
+      h("ol", {}, alt.options.map((o) => h("li", {}, o.name + ": ΔE " + fmt(o.delta_E_V, 3) + " V, margin " + fmt(o.margin_V, 3) + " V ", verdictBadge(o.verdict)))))),
+  ];
+}
+
+export async function joint(root) {
+  const { ui, ds, sp, start, params } = await begin(root, "Joint", "joint");
+  const mids = new Set(ds.materials.map((m) => m.id));
+  const eids = new Set(ds.environments.map((e) => e.id));
+  const mopts = materialOptions(ds);
+  const aField = field("cw-a", "First material", select(mopts, known(mids, params.get("a"), start.a)));
+  const bField = field("cw-b", "Second material", select(mopts, known(mids, params.get("b"), start.b)));
+  const envField = field("cw-env", "Environment", select(environmentOptions(ds), known(eids, params.get("env"), start.env)));
+  const arField = field("cw-ar", "Wetted area ratio, cathode : anode", numberInput(params.get("ar") ?? start.area_ratio),
+    hint(sp, "area_ratio", "e.g. 0.1 for a small noble fastener in a large plate, 10 for the reverse"));
+  ui.formBox.append(h("div", { class: "cw-row" }, aField.el, bField.el), h("div", { class: "cw-row" }, envField.el, arField.el));
+  function collect() {
+    let bad = false;
+    const p = new URLSearchParams();
+    const req = { a: aField.control.value, b: bField.control.value, env: envField.control.value };
+    if (arField.control.value.trim() !== "") {
+      bad = readInto(arField, req, "area_ratio", allowed(sp, "area_ratio", "a ratio of cathode area over anode area")) || bad;
+    } else arField.setError("");
+    p.set("a", req.a); p.set("b", req.b); p.set("env", req.env); p.set("ar", arField.control.value.trim());
+    writeUrl(p);
+    return { req, bad };
+  }
+  const fieldFor = fieldMap({ a: aField, b: bField, env: envField, "area*": arField });
+  const seriesChart = seriesChartView();
+  async function render(r) {
+    const range = r.delta_E_range_V || [];
+    const rate = r.rate_mm_per_year;
+    const chart = h("div", { class: "cw-series-box" });
+    fill(ui.result,
+      h("p", { class: "cw-big" }, verdictBadge(r.verdict)),
+      h("p", { class: "cw-direction", text: r.verdict_text }),
+      h("p", { class: "cw-meaning", text: "“" + r.verdict + "”: " + r.verdict_meaning }),
+      h("table", { class: "cw-compare" }, h("tbody", {},
+        h("tr", {}, h("th", { text: "Anode (attacked)" }), h("td", { text: r.anode_name || r.anode || "—" })),
+        h("tr", {}, h("th", { text: "Cathode" }), h("td", { text: r.cathode_name || r.cathode || "—" })),
+        h("tr", {}, h("th", { text: "Basis" }), h("td", {}, r.basis_description || r.basis, " ", sourceLink(r.basis_source))),
+        h("tr", {}, h("th", { text: "Potential difference ΔE, nominal" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
+        h("tr", {}, h("th", { text: "ΔE best to worst case" }), h("td", { text: range.map((v) => fmt(v, 3)).join(" to ") + " V" })),
+        h("tr", {}, h("th", { text: "Allowable ΔE in this environment" }), h("td", {}, fmt(r.allowable_V, 2) + " V ", sourceLink(r.allowable_source))),
+        h("tr", {}, h("th", { text: "Area effect" }), h("td", { text: r.area_effect || "" })),
+        h("tr", {}, h("th", { text: "Extra attack on the anode (screening)" }), h("td", { "data-cw-value": "rate_mm_per_year", text: rate ? fmt(rate[0], 3) + " to " + fmt(rate[1], 3) + " mm/year" : "not estimated: " + (r.rate_reason || "") })))),
+      warningsList(r.warnings),
+      statesTable(r.states || []),
+      adviceNodes(r),
+      h("h3", { text: "Where the pair sits in the series" }), chart,
+      assumptionsBox(r.assumptions),
+      derivation(r.steps),
+      cautionsBox(r.cautions),
+      sourcesLine(r.sources, r.data_version));
+    const svg = await seriesChart([r.a, r.b, ...((r.states || []).flatMap((st) => [st.a, st.b]))]);
+    if (svg) chart.replaceChildren(svg);
+  }
+  bindForm(ui, runner(ui, "joint", render, fieldFor), collect);
+}

@@ -1,0 +1,110 @@
+// The runner of a calculator: sends the form's request to the worker as the inputs change,
+// greys a result that no longer matches the inputs, shows calc's refusal at the field it names,
+// and paints the build-time answer of the opening request while the runtime starts.
+import { calculate, h, onRuntime, precomputedAnswers } from "./site.mjs";
+import { fill } from "./ui.mjs";
+
+// Canonical JSON: object keys sorted, no spaces (mirrors canonical() in sitebuild/precompute.py).
+export function canonical(v) {
+  if (Array.isArray(v)) return "[" + v.map(canonical).join(",") + "]";
+  if (v && typeof v === "object") return "{" + Object.keys(v).sort().map((k) => JSON.stringify(k) + ":" + canonical(v[k])).join(",") + "}";
+  return JSON.stringify(v === undefined ? null : v);
+}
+
+function runtimeStage() {
+  let stage = "idle";
+  onRuntime((rt) => { stage = rt.stage; })();
+  return stage;
+}
+
+// Recalculation with stale-result greying and field errors. A change is sent at once when no
+// calculation is running, otherwise the latest one waits for the running one (no fixed delay).
+// The first request of a page shows the build-time answer at once when it is exactly the
+// precomputed request, marked as such, until the runtime's own answer replaces it.
+// fieldFor(name) maps the field a calc error names to the form's field (or null: the message
+// then shows under the form).
+export function runner(ui, name, onResult, fieldFor) {
+  let ticket = 0;
+  let hasResult = false;
+  let first = true;
+  let early = null;
+  let running = null;
+  let queued = null;
+  let refused = null; // [field, message] of calc's last refusal shown at a field
+  function setStale(stale) { ui.result.classList.toggle("cw-stale", stale && hasResult); }
+  function clearRefusal() {
+    if (refused && refused[0].msg.textContent === refused[1]) refused[0].setError("");
+    refused = null;
+  }
+  async function showEarly(my, request, answer) {
+    // Settled by a real answer only: when the runtime cannot start (it may fail before the
+    // precomputed answers have loaded), the build-time answer is still worth showing.
+    let settled = false;
+    answer.then((out) => { settled = !!out && (out.ok || !out.error || out.error.field !== "runtime"); });
+    if (runtimeStage() === "ready") return;
+    const data = await precomputedAnswers();
+    const result = data && data.answers && data.answers[name] && data.answers[name][canonical(request)];
+    if (!result || settled || my !== ticket) return;
+    hasResult = true;
+    onResult(result, request);
+    early = h("p", { class: "cw-early-note", role: "status" },
+      h("span", { class: "cw-badge", text: "build time" }), " Computed at build time for these inputs, refining…");
+    ui.result.classList.add("cw-early");
+    ui.result.prepend(early);
+    performance.mark("cw-early-painted");
+  }
+  async function go(request, clientErrors) {
+    const my = ++ticket;
+    if (clientErrors) { setStale(true); return; }
+    ui.result.setAttribute("aria-busy", "true");
+    const answer = calculate(name, request);
+    if (first) { first = false; await showEarly(my, request, answer); }
+    const out = await answer;
+    if (my !== ticket) return;
+    ui.result.removeAttribute("aria-busy");
+    if (out.ok) {
+      ui.formMsg.textContent = "";
+      clearRefusal();
+      hasResult = true;
+      early = null;
+      ui.result.classList.remove("cw-early");
+      onResult(out.result, request);
+      setStale(false);
+      performance.mark("cw-result-painted");
+    } else if (early && out.error.field === "runtime") {
+      early.replaceChildren(h("span", { class: "cw-badge", text: "build time" }),
+        " Computed at build time for these inputs; the calculation runtime could not start, so other inputs cannot be calculated here.");
+      ui.formMsg.textContent = out.error.message;
+    } else {
+      clearRefusal();
+      const f = fieldFor ? fieldFor(out.error.field) : null;
+      if (f) { f.setError(out.error.message); refused = [f, out.error.message]; }
+      else ui.formMsg.textContent = out.error.message;
+      setStale(true);
+      if (!hasResult) fill(ui.result, h("p", { class: "cw-pending", text: "No result yet: correct the input above." }));
+    }
+  }
+  async function pump() {
+    while (queued) {
+      const [request, clientErrors] = queued;
+      queued = null;
+      running = go(request, clientErrors);
+      await running;
+    }
+    running = null;
+  }
+  function schedule(request, clientErrors) {
+    queued = [request, clientErrors];
+    if (running) ticket++; // the running answer is for older inputs: do not paint it
+    else pump();
+  }
+  return { schedule, now: schedule };
+}
+
+// The usual wiring of a form: collect() -> {req, bad}; every input and change recalculates.
+export function bindForm(ui, run, collect, events = ["input", "change"]) {
+  const changed = () => { const { req, bad } = collect(); run.schedule(req, bad); };
+  for (const ev of events) ui.formBox.addEventListener(ev, changed);
+  const first = collect();
+  run.now(first.req, first.bad);
+}
