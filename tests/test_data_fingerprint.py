@@ -8,18 +8,44 @@ import pytest
 
 from sitebuild.dataset import load_project_bundle
 
+# Changed on purpose with issue 18 (values read, or computed from Gibbs energies read): E° of
+# Sr2+/Sr -2.899 -> -2.89 (OpenStax Chemistry 2e App. L), ZnO/Zn -1.26 -> -1.2603, Cu2O/Cu -0.36 ->
+# -0.3560, Ag2O/Ag 0.342 -> 0.3425, HgO/Hg 0.0977 -> 0.0974, Fe(OH)3/Fe(OH)2 -0.56 -> -0.5472,
+# Fe3O4/Fe 0.085 -> -0.0868, Br2/Br- 1.066 -> 1.0657 (from App. G, NBS 1982 values); 50/50
+# solder seawater range [-0.37, -0.27] -> [-0.36, -0.27] V SCE (Australasian Corrosion
+# Association table); densities of Be 1.85 -> 1.848 and Mg 1.74 -> 1.738 g/cm³ (CRC 80th ed. as
+# reproduced by periodictable); twelve sources added (the restatements read; the CP-design
+# catalogues add theirs), gibbs_energies.yaml added.
 FINGERPRINT = {
     "counts": {"half_reactions": 78, "reference_electrodes": 16, "materials": 56, "environments": 10,
-               "ions": 61, "sources": 38, "cp_criteria": 22, "cp_structures": 7, "cp_settings": 6},
-    "sum_E0_V": -24.0248,
+               "ions": 61, "sources": 54, "cp_criteria": 22, "cp_structures": 7, "cp_settings": 6,
+               "gibbs_energies": 37},
+    "sum_E0_V": -24.17122,
     "sum_dEdT_mV_per_K": -7.342,
     "sum_reference_E_V_SHE": 3.4874,
-    "sum_seawater_range_ends_V_SCE": -44.53,
+    "sum_seawater_range_ends_V_SCE": -44.52,
     "sum_anodic_index_V": 29.65,
-    "sum_density_g_cm3": 426.37,
+    "sum_density_g_cm3": 426.366,
     "sum_equivalent_weight_g": 1767.01,
     "sum_allowable_V": 2.45,
     "sum_ion_size_angstrom": 234.5,
+    "sum_gibbs_dGf_kJ_per_mol": -9913.27,
+    # confidence flags of the files above: a flag changed from recalled to read (or back) is on purpose
+    "flags": {"read": 250, "recalled": 249, "computed": 97},
+}
+
+
+#: the cathodic-protection design catalogues (data/cp_anode_alloys.yaml ... cp_design_tables.yaml)
+DESIGN_FINGERPRINT = {
+    "counts": {"cp_anode_alloys": 6, "cp_anode_types": 6, "cp_coatings": 4, "cp_current_densities": 5,
+               "cp_design_tables": 5},
+    "sum_seawater_capacity_Ah_per_kg": 2780,
+    "sum_utilisation": 4.95,
+    "sum_coating_a_plus_b": 1.55,
+    "sum_current_densities_A_per_m2": 6.48,
+    "sum_paralleling_factor": 0.03588,
+    "sum_size_factor": 25.73,
+    "sum_potential_factor": 11.07,
 }
 
 
@@ -48,9 +74,20 @@ def test_sums_of_key_values(bundle):
         "sum_equivalent_weight_g": _sum(bundle["materials"], "equivalent_weight_g"),
         "sum_allowable_V": _sum(bundle["environments"], "allowable_V"),
         "sum_ion_size_angstrom": _sum(bundle["ions"], "size_angstrom"),
+        "sum_gibbs_dGf_kJ_per_mol": _sum(bundle["gibbs_energies"], "dGf_kJ_per_mol"),
     }
     for key, value in got.items():
         assert value == pytest.approx(FINGERPRINT[key], abs=5e-4), key
+
+
+def test_confidence_flags(bundle):
+    from sitebuild.validate.where import each_flag
+
+    kinds = [k for k in FINGERPRINT["counts"] if k != "sources"]
+    got = {c: 0 for c in FINGERPRINT["flags"]}
+    for flag in each_flag(bundle, kinds):
+        got[flag.confidence] = got.get(flag.confidence, 0) + 1
+    assert got == FINGERPRINT["flags"]
 
 
 def test_version_is_content_hash(bundle):
@@ -68,3 +105,22 @@ def test_invariants_over_the_whole_table(bundle):
         if m.get("state") == "passive" and m.get("other_state"):
             active = by_id[m["other_state"]]
             assert sum(active["seawater_range_V_SCE"]) < sum(rng), m["id"]
+
+
+def test_design_catalogues(bundle):
+    fp = DESIGN_FINGERPRINT
+    assert {k: len(bundle[k]) for k in fp["counts"]} == fp["counts"]
+    tables = {t["id"]: t["rows"] for t in bundle["cp_design_tables"]}
+    got = {
+        "sum_seawater_capacity_Ah_per_kg": sum(r["seawater"]["capacity_Ah_per_kg"] for r in bundle["cp_anode_alloys"]
+                                               if r.get("seawater")),
+        "sum_utilisation": _sum(bundle["cp_anode_types"], "utilisation"),
+        "sum_coating_a_plus_b": sum(b["a"] + b["b"] for r in bundle["cp_coatings"] for b in r["bands"]),
+        "sum_current_densities_A_per_m2": sum(b[f"{s}_A_per_m2"] for r in bundle["cp_current_densities"]
+                                              for b in r["bands"] for s in ("initial", "mean", "final")),
+        "sum_paralleling_factor": _sum(tables["paralleling-factor"], "P"),
+        "sum_size_factor": _sum(tables["anode-size-factor"], "f"),
+        "sum_potential_factor": sum(r["magnesium"] + r["zinc"] for r in tables["structure-potential-factor"]),
+    }
+    for key, value in got.items():
+        assert value == pytest.approx(fp[key], abs=5e-6), key

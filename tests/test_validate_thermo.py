@@ -25,7 +25,7 @@ def test_linked_couples_that_differ_by_millivolts_warn_but_pass(folder):
     # against 0.771 - 0.894 = -0.123 V, 12 mV apart: handbooks genuinely differ (warning only)
     def change(doc):
         rec = record(doc, "half_reactions", "Fe2+/Fe")
-        rec.update(E0_V=-0.447, E0_source="crc-vanysek", E0_confidence="read")
+        rec.update(E0_V=-0.447, E0_source="crc-vanysek", E0_confidence="read", E0_where="Table 1")
     edit(folder, "half_reactions.yaml", change)
     lines = validate.check_folder(folder)
     # bratsch-1989 is now cited by no value: that is the only error
@@ -62,11 +62,11 @@ def test_triples_with_fractional_multipliers():
     # Vanýsek, CRC Handbook 92nd ed. (2011), Table 1: 0.920, 0.7973, 0.851 V
     raw["half_reactions"] += [
         {"id": "Hg2+/Hg2^2+", "name": "x", "oxidised": ["2 Hg2+(aq)"], "reduced": ["Hg2^2+(aq)"], "n": 2,
-         "E0_V": 0.920, "E0_source": "crc-vanysek", "E0_confidence": "read"},
+         "E0_V": 0.920, "E0_source": "crc-vanysek", "E0_confidence": "read", "E0_where": "Table 1"},
         {"id": "Hg2^2+/Hg", "name": "x", "oxidised": ["Hg2^2+(aq)"], "reduced": ["2 Hg(l)"], "n": 2,
-         "E0_V": 0.7973, "E0_source": "crc-vanysek", "E0_confidence": "read"},
+         "E0_V": 0.7973, "E0_source": "crc-vanysek", "E0_confidence": "read", "E0_where": "Table 1"},
         {"id": "Hg2+/Hg", "name": "x", "oxidised": ["Hg2+(aq)"], "reduced": ["Hg(l)"], "n": 2,
-         "E0_V": 0.851, "E0_source": "crc-vanysek", "E0_confidence": "read"},
+         "E0_V": 0.851, "E0_source": "crc-vanysek", "E0_confidence": "read", "E0_where": "Table 1"},
     ]
     lines = validate.validate_raw(raw, None)
     warn = [ln for ln in lines if "Hg2+/Hg:E0_V" in ln]

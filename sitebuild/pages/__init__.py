@@ -7,7 +7,10 @@ files, so they are never committed. Rules the pages keep:
 - every data string is escaped (:func:`esc`, the templates' autoescape): data is text, never
   HTML or Markdown, so a ``<script>`` in a note shows literally;
 - every value carries a link to its source's anchor on ``reference/sources.md``
-  (``#src-<id>``), and values recalled rather than read carry the :data:`RECALLED` badge;
+  (``#src-<id>``), values recalled rather than read carry the :data:`RECALLED` badge, and
+  values read carry the place they were read (``_where``) beside the link;
+- ``reference/data-quality.md`` counts the flags by file and kind of value and lists the
+  values still recalled;
 - links are relative ``.md`` links, which mkdocs rewrites for ``use_directory_urls``;
 - titles carry names, UNS numbers and couple ids so the built-in search finds them.
 """
@@ -20,6 +23,7 @@ from .kit import _TITLE_SAFE, Site, with_title
 from .links import (_slug, couple_anchor, electrode_anchor, environment_anchor, href, material_file, page_url,
                     source_anchor)
 from .materials import galvanic_series, material_pages, materials_index
+from .quality import quality_page
 from .series import HYPOTHETICAL, ions_page, reaction_html, series_page, species_html
 from .text import esc
 
@@ -49,5 +53,6 @@ def generate_pages(bundle, raw_html=True):
     pages["reference/ions.md"] = ions_page(site)
     pages["reference/galvanic-series.md"] = galvanic_series(site)
     pages["reference/cp-criteria.md"] = cp_criteria_page(site)
+    pages["reference/data-quality.md"] = quality_page(site)
     pages["reference/sources.md"] = bibliography(site)  # last: it lists what every other page cited
     return pages

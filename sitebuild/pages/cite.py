@@ -1,8 +1,9 @@
 """Sources: the link and confidence mark of every value, citation lines, the bibliography page.
 
 Every value links to its source's anchor on ``reference/sources.md`` (``#src-<id>``); values
-recalled rather than read carry :data:`RECALLED`, values computed here :data:`COMPUTED`. The
-bibliography lists, under each source, what the other pages cited it for, so it is written last.
+recalled rather than read carry :data:`RECALLED`, values computed here :data:`COMPUTED`, values
+read carry the place they were read (:func:`where_text`). The bibliography lists, under each
+source, what the other pages cited it for, so it is written last.
 """
 
 from .links import source_anchor
@@ -16,6 +17,34 @@ COMPUTED = Md('<abbr class="cw-computed" title="computed: derived here from publ
               '(see the source note)">(c)</abbr>')
 _BADGES = {"recalled": Md(" ") + RECALLED, "computed": Md(" ") + COMPUTED}
 SOURCES_PAGE = "reference/sources.md"
+
+
+def _citation_of(rec, prefix, parent):
+    """(source id, confidence, where) of the value ``prefix`` of ``rec``: its own
+    ``<prefix>_source``/``_confidence``, else the record's, else its parent's; the place read
+    (``_where``/``where``) comes with the confidence it belongs to."""
+    sid = rec.get(f"{prefix}_source") if prefix else None
+    conf = rec.get(f"{prefix}_confidence") if prefix else None
+    where = rec.get(f"{prefix}_where") if conf is not None else None
+    sid = sid if sid is not None else rec.get("source")
+    if conf is None:
+        conf, where = rec.get("confidence"), rec.get("where")
+    if sid is None and parent is not None:
+        sid = parent.get("source")
+        if conf is None:
+            conf, where = parent.get("confidence"), parent.get("where")
+    return sid, conf, where
+
+
+def where_text(where):
+    """Where a read value was read, as shown beside its source link: `` (Table 1, row Zn2+/Zn)``.
+
+    >>> where_text("Table 1, row <Zn>"), where_text(None)
+    (Md(' <span class="cw-where" title="where it was read">(Table 1, row &#60;Zn&#62;)</span>'), Md(''))
+    """
+    if not isinstance(where, str) or not where.strip():
+        return Md()
+    return Md(' <span class="cw-where" title="where it was read">({})</span>').format(where)
 
 
 class Citations:
@@ -37,19 +66,13 @@ class Citations:
             link: the link from the bibliography to the value [unitless]
             parent: the record that holds ``rec`` [unitless]
         """
-        sid = rec.get(f"{prefix}_source") if prefix else None
-        conf = rec.get(f"{prefix}_confidence") if prefix else None
-        sid = sid if sid is not None else rec.get("source")
-        conf = conf if conf is not None else rec.get("confidence")
-        if sid is None and parent is not None:
-            sid = parent.get("source")
-            conf = conf if conf is not None else parent.get("confidence")
+        sid, conf, where = _citation_of(rec, prefix, parent)
         if sid is None:
             return Md()
         if what:
             self.cited.setdefault(sid, []).append((what, link))
         target = f"{page.to(SOURCES_PAGE)}#{source_anchor(sid)}"
-        return Md(" ") + page.a(sid, target) + _BADGES.get(conf, Md())
+        return Md(" ") + page.a(sid, target) + _BADGES.get(conf, Md()) + where_text(where)
 
     def cited_for(self, page, sid):
         """The links to what the source ``sid`` was cited for, each once."""

@@ -63,8 +63,9 @@ def _couple_row(page, r):
     flags = []
     if r.get("hypothetical"):
         flags.append(HYPOTHETICAL)
-    if r.get("spread") or r.get("note"):
-        flags.append(page.a("see note", f"#note-{anchor}") + Md(" (handbooks differ)" if r.get("spread") else ""))
+    if r.get("spread") or r.get("note") or r.get("gibbs_note"):
+        differ = r.get("spread") or r.get("gibbs_note")
+        flags.append(page.a("see note", f"#note-{anchor}") + Md(" (handbooks differ)" if differ else ""))
     valid = r.get("valid_C")
     if isinstance(valid, list) and len(valid) == 2:
         flags.append(Md("valid ") + range_text(valid, "°C"))
@@ -81,6 +82,8 @@ def _couple_note(page, r):
         parts.append(Md("Published values: {}.").format(r["spread"]))
     if r.get("note"):
         parts.append(Md.escape(r["note"]))
+    if r.get("gibbs_note"):
+        parts.append(Md("From the Gibbs energies of formation: {}").format(r["gibbs_note"]))
     if not parts:
         return None
     anchor = couple_anchor(r.get("id"))

@@ -94,7 +94,8 @@ def leftover_rows(page, rec, shown, what, link):
     """
     rows = []
     for key, value in rec.items():
-        if key in shown or key.endswith(("_source", "_confidence")) or key in ("source", "confidence"):
+        if key in shown or key.endswith(("_source", "_confidence", "_where")) \
+                or key in ("source", "confidence", "where"):
             continue
         if value is None or value == [] or value == {}:
             continue

@@ -11,6 +11,8 @@ Checks, in order (module in brackets):
 2. JSON Schema (Draft 2020-12) of ``schema/<file>.schema.json``, every error reported [schema];
 3. sources: every ``source``/``*_source`` id exists, every source is used, every value has a
    source and a confidence [sources];
+3a. where each value was read: every value flagged ``read`` names its place in the document
+   (``<field>_where``, or ``where`` for a mapping with one value) [where];
 4. duplicate ids, aliases and UNS numbers within a kind (compared the way lookups compare them)
    [records];
 5. physical ranges and range ends in the right order [ranges];
@@ -18,6 +20,7 @@ Checks, in order (module in brackets):
    [reactions];
 7. thermodynamic consistency: free-energy additivity of linked couples (A: X→Y, B: Y→Z,
    C: X→Z), and acid/alkaline forms of a couple through the ionic product of water [thermo];
+   E° against the Gibbs energies of formation of its species, ΔrG° = −nFE° within 10 mV [gibbs];
 8. reference electrodes: the temperature model gives ``E_V_SHE`` at 25 °C within 1 mV [refelec];
 9. materials: equivalent weights follow ASTM G102, ``other_state`` links point back, passive
    states are nobler than active ones [materials];
@@ -33,6 +36,7 @@ from ..dataset import PROJECT_DATA
 from .collect import KIND_ORDER, Collector
 from .cp import check_cp_criteria
 from .files import file_shape, locate_read_problems
+from .gibbs import check_gibbs
 from .materials import check_materials
 from .ranges import check_ranges
 from .reactions import check_stoichiometry
@@ -41,12 +45,13 @@ from .refelec import check_reference_electrodes, refelec_potential
 from .schema import schema_problems
 from .sources import check_sources
 from .thermo import check_acid_alkaline, check_additivity
+from .where import check_where
 
 __all__ = ["check_folder", "refelec_potential", "validate_raw"]
 
 #: the semantic checks, in the order their problems are reported
-SEMANTIC_CHECKS = (check_sources, check_duplicates, check_ranges, check_stoichiometry, check_additivity,
-                   check_acid_alkaline, check_reference_electrodes, check_materials, check_environments,
+SEMANTIC_CHECKS = (check_sources, check_where, check_duplicates, check_ranges, check_stoichiometry, check_additivity,
+                   check_acid_alkaline, check_gibbs, check_reference_electrodes, check_materials, check_environments,
                    check_ions, check_cp_criteria)
 
 

@@ -1,5 +1,6 @@
 """Sources: every ``source``/``*_source`` id exists in sources.yaml, every source is cited, every
-value has a source and a confidence (its own, a fallback's or its record's)."""
+value has a source and a confidence (its own, a fallback's or its record's). A restatement names
+the original it reproduces (``restates``), which counts as cited."""
 
 from ..dataset import FILES
 from .collect import CONFIDENCES, KIND_ORDER, closest_hint, each, field_path, fmt, is_num
@@ -99,6 +100,23 @@ def _cited_ids(raw, known, out):
     return used
 
 
+def _restated_ids(raw, known, out):
+    """The originals that restatements name (``restates``): each must be a source; it counts as cited."""
+    used = set()
+    for label, rec in each(raw, "sources"):
+        orig = rec.get("restates")
+        if not isinstance(orig, str):
+            continue
+        used.add(orig)
+        if known is not None and orig not in known:
+            out.error("sources", label, "restates",
+                      f"unknown source id {orig!r}: the original a restatement reproduces must be in sources.yaml"
+                      f"{closest_hint(orig, known)}")
+        elif orig == rec.get("id"):
+            out.error("sources", label, "restates", "a source cannot restate itself")
+    return used
+
+
 def check_sources(raw, out):
     """Unknown, uncited and missing sources, and values without a confidence."""
     have_sources = isinstance(raw.get("sources"), list)
@@ -107,6 +125,7 @@ def check_sources(raw, out):
         if isinstance(rec.get("id"), str):
             ids.setdefault(rec["id"], label)
     used = _cited_ids(raw, ids if have_sources else None, out)
+    used |= _restated_ids(raw, ids if have_sources else None, out)
     # uncited sources only when every file was read (a source may be cited in an unreadable file)
     if have_sources and all(isinstance(raw.get(k), list) for k in KIND_ORDER if k in FILES.values()):
         for sid, label in ids.items():
