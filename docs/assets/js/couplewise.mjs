@@ -4,7 +4,7 @@
 // Small and framework-free: the logic lives in calc (Python, run by Pyodide in the worker).
 // Data text is only ever inserted as text (textContent), never as HTML.
 import { loadCalculator } from "./calculators.mjs";
-import { dataset, h, onRuntime, runtimeStatus, servedOverHttp, siteRoot, spec, startWorker } from "./site.mjs";
+import { dataset, h, onRuntime, precomputedAnswers, runtimeStatus, servedOverHttp, siteRoot, spec, startWorker } from "./site.mjs";
 
 // For tests and benchmarks that drive the worker from a page (the same worker the page uses).
 export { calculate } from "./site.mjs";
@@ -24,6 +24,7 @@ function initPage() {
     root.prepend(runtimeStatus());
     dataset().catch(() => {}); // fetched while the calculator's module loads; errors show below
     spec().catch(() => {});
+    precomputedAnswers(); // the build-time answer, asked for at once (shown even if the runtime fails first)
     setup.then((run) => run(root)).catch((err) => {
       root.append(h("p", { class: "cw-error", role: "alert", text: "This calculator could not start: " + String(err && err.message ? err.message : err) }));
     });
