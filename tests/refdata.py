@@ -1,14 +1,19 @@
-"""A small dataset bundle built from /work/shared/REFERENCE-DATA.md, for engine tests that need
-records the shipped data/ does not hold (a Bates–Bower polynomial electrode, a ΔCp° term) or that
-must not move when the shipped data is curated.
+"""A small dataset bundle for engine tests that need records the shipped data/ does not hold (a
+Bates–Bower polynomial electrode, a ΔCp° term) or that must not move when the shipped data is curated.
 
-Values and flags, as REFERENCE-DATA.md gives them:
-- E°: Vanýsek, "Electrochemical Series", CRC Handbook 92nd ed. (2011), Table 1 (read via OpenStax
-  Chemistry 2e, Appendix L); Fe2+/Fe -0.447, Fe3+/Fe -0.037 (recalled).
-- dE°/dT: computed from NBS entropies (Wagman et al. 1982) as in REFERENCE-DATA.md §2.
-- Reference electrodes: §3 (SCE polynomial Ives & Janz 1961, recalled; CSE +0.316 V and
-  +0.9 mV/K; Ag/AgCl seawater +0.25 V; Bates & Bower 1954 E°(t) polynomial, recalled).
-- Kielland (1937) ion sizes: §7 (recalled).
+Values and their flags, each from the published document:
+- E°: P. Vanýsek, "Electrochemical Series", CRC Handbook of Chemistry and Physics, 92nd ed. (2011),
+  Table 1, read as reproduced in OpenStax, Chemistry 2e (2019), Appendix L; Fe2+/Fe -0.447 and
+  Fe3+/Fe -0.037 V recalled.
+- dE°/dT: computed as ΔS°/(nF) from the NBS entropies (D. D. Wagman et al., J. Phys. Chem. Ref.
+  Data 11, Suppl. 2, 1982, read in the OpenStax Chemistry 2e Appendix G copy), the method of
+  S. G. Bratsch, J. Phys. Chem. Ref. Data 18 (1989) 1.
+- Reference electrodes: SCE polynomial of D. J. G. Ives and G. J. Janz, Reference Electrodes (1961),
+  recalled; CSE +0.316 V (S. Szabó and I. Bakos, Int. J. Corrosion 2010, art. 756950, Table 2, read)
+  and +0.9 mV/K (common practice); Ag/AgCl seawater +0.25 V (DNV-RP-B401, recalled); Ag/AgCl E°(t)
+  polynomial of R. G. Bates and V. E. Bower, J. Res. NBS 53 (1954) 283, recalled.
+- Ion sizes: J. Kielland, J. Am. Chem. Soc. 59 (1937) 1675, read as reproduced in R. A. Freeze and
+  J. A. Cherry, Groundwater (1979), Appendix IV.
 """
 
 

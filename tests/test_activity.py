@@ -34,7 +34,9 @@ def test_ionic_strength_rejects_bad_composition(bad):
 # ---------------------------------------------------------------- models against published tables
 
 # J. Kielland, J. Am. Chem. Soc. 59 (1937) 1675, Table (individual activity coefficients at
-# 25 °C), from memory. Columns: I = 0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1.
+# 25 °C), read as reproduced in R. A. Freeze and J. A. Cherry, Groundwater (Prentice-Hall 1979),
+# Appendix IV "Debye-Hückel Equation and Kielland Table for Ion-Activity Coefficients" (online
+# edition). Columns: I = 0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1.
 KIELLAND_I = [0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1]
 KIELLAND = {
     (1, 9): [0.975, 0.967, 0.950, 0.933, 0.914, 0.88, 0.86, 0.83],     # H+
@@ -50,17 +52,19 @@ def test_extended_law_reproduces_kielland_table(key):
     z, size = key
     for I, published in zip(KIELLAND_I, KIELLAND[key]):
         gamma = 10 ** log10_gamma(z, I, "extended", A25, B25, size)
-        # Kielland's A and B differ slightly from ours and his values are rounded: 0.007
+        # Kielland's A and B differ slightly from ours and his values are printed to two or three
+        # decimals: the largest difference is 0.0064 (H+ at I = 0.05), so 0.007
         assert gamma == pytest.approx(published, abs=0.007), (z, size, I)
 
 
 def test_extended_with_shipped_ion_sizes(shipped):
-    # Kielland (1937) table, from memory: Zn2+ (å = 6 Å) 0.675 and Cl- (å = 3 Å) 0.899 at I = 0.01
+    # Kielland (1937) table as reproduced in Freeze & Cherry (1979), Appendix IV (read): Zn2+ (å = 6 Å) 0.675
+    # and Cl- (å = 3 Å) 0.899 at I = 0.01
     assert activity_coefficient("Zn2+", 0.01, "extended").gamma == pytest.approx(0.675, abs=0.003)
     assert activity_coefficient("Cl-", 0.01, "extended").gamma == pytest.approx(0.899, abs=0.003)
     r = activity_entry({"species": "Zn2+", "ionic_strength": 0.01, "model": "extended"})
     assert r["size_angstrom"] == 6.0
-    assert "kielland-1937" in r["sources"]
+    assert "tissue-kielland-lookup" in r["sources"]  # the reproduction read of Kielland (1937), Table 1
 
 
 def test_models_against_chempy():
@@ -115,8 +119,9 @@ def test_warning_beyond_each_models_range(model):
 
 
 def test_stated_ranges():
-    # W. Stumm and J. J. Morgan, Aquatic Chemistry 3rd ed. (1996), Table 3.3 (from memory):
-    # limiting I < 10^-2.3, extended < 10^-1, Davies < 0.5 mol/kg
+    # W. Stumm and J. J. Morgan, Aquatic Chemistry 3rd ed. (1996), Table 3.3 (from memory, not re-read):
+    # limiting I < 10^-2.3, extended < 10^-1, Davies < 0.5 mol/kg. This pins the ranges calc.activity
+    # states it uses; it is no check against a document that was read.
     assert VALID_I_MAX["limiting"] == pytest.approx(10 ** -2.3, rel=0.003)
     assert VALID_I_MAX["extended"] == 0.1
     assert VALID_I_MAX["davies"] == 0.5
@@ -147,7 +152,9 @@ def test_entry_environment(shipped):
     env = shipped.get("environments", "seawater-flowing")
     r = activity_entry({"species": "Na+", "env": "seawater-flowing"})
     assert r["ionic_strength"] == env["ionic_strength_mol_per_kg"]
-    # seawater's I ≈ 0.7 mol/kg (REFERENCE-DATA §7: Dickson/Millero 0.7228 at S = 35) is above Davies' 0.5
+    # seawater's I ≈ 0.7 mol/kg (0.7130 at absolute salinity 34.7118 g/kg in the TEOS-10 GSW toolbox example
+    # of gsw_ionic_strength_from_SA, after Millero et al., Deep-Sea Res. I 55 (2008) 50; read) is above
+    # Davies' 0.5
     assert any(w["field"] == "ionic_strength" for w in r["warnings"])
     assert env["ionic_strength_source"] in r["sources"]
 

@@ -35,13 +35,13 @@ def test_water_lines_and_a_flat_metal_line(shipped):
     h2, o2, zn, _ = r["lines"]
     # Hydrogen electrode at 25 °C, p(H2) = 1 atm: E = −(ln10·RT/F)·pH, 0 V at pH 0 and −0.4141 V
     # at pH 7 with p(H2) = 1 bar (Nernst equation; Bard & Faulkner, Electrochemical Methods, 2nd ed.
-    # 2001, §2.1); the slope is −59.16 mV per pH (REFERENCE-DATA §1: ln10·RT/F = 59.159 mV at 25 °C)
+    # 2001, §2.1); the slope is −59.16 mV per pH (ln10·RT/F = 59.159 mV at 25 °C from CODATA 2018 R and F)
     assert h2["potential_V"][0] == 0.0
     assert h2["potential_V"][1] == pytest.approx(-7 * 0.059159, abs=7 * 5e-7)
     assert eph_entry({"lines": [{"id": "H+/H2", "pressures": {"H2": 1 / 1.01325}}], "pH_values": [0, 7]}
                      )["lines"][0]["potential_V"][1] == pytest.approx(-0.4141, abs=5e-5)
     # O2/H2O: E° = 1.229 V vs SHE (CRC Handbook, Electrochemical Series, Vanýsek 2011), falling 59.16 mV per pH
-    # (4 H+ and 4 electrons; Nernst equation, common practice)
+    # (4 H+ and 4 electrons: the Nernst equation, IUPAC Green Book 3rd ed. 2007, §2.13)
     assert o2["potential_V"][0] == pytest.approx(1.229, abs=1e-6)
     assert (o2["potential_V"][0] - o2["potential_V"][2]) / 14 == pytest.approx(0.059159, abs=2e-6)
     assert o2["pH_dependent"] and h2["pH_dependent"] and not zn["pH_dependent"]

@@ -11,9 +11,11 @@ from calc.electrode import electrode_entry
 from calc.eph import eph_entry
 from calc.errors import InputError
 from calc.species import balance_problems, parse_species
+from oracles import nernst_slope_V
 from refdata import reference_bundle
 
-SLOPE25 = constants.nernst_slope(298.15)
+# ln10·RT/F at 25 °C from CODATA 2018 R and F, written out in tests/oracles.py (not calc.constants)
+SLOPE25 = nernst_slope_V(25.0)
 
 
 def E(id_, **cond):
@@ -30,7 +32,8 @@ def test_daniell_cell_standard(shipped):
     assert r["cell_potential_V"] == pytest.approx(1.1037, abs=1e-9)
     assert r["n_electrons"] == 2
     assert r["overall_reaction"] == "Cu2+(aq) + Zn(s) → Cu(s) + Zn2+(aq)"
-    # ΔG° = −nFE° = −212.98 kJ/mol; log10 K = 2·1.1037/0.0591594 = 37.31 (computed from the above)
+    # ΔG° = −nFE° = −2 × 96485.332 × 1.1037 J/mol = −212.98 kJ/mol; log10 K = 2·1.1037/0.0591593 = 37.313
+    # (computed from the above with CODATA 2018 F, R)
     assert r["standard_delta_G_kJ_per_mol"] == pytest.approx(-212.98, abs=0.01)
     assert r["log10_K"] == pytest.approx(37.313, abs=0.001)
     assert r["equilibrium_constant"] == pytest.approx(10 ** r["log10_K"], rel=1e-12)
@@ -41,9 +44,12 @@ def test_daniell_cell_standard(shipped):
 
 def test_daniell_cell_with_activities(shipped):
     r = couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "activities": {"Zn2+": 0.1, "Cu2+": 0.001}})
-    # Nernst: E = 1.1037 − (0.05916/2)·log10(0.1/0.001) = 1.0445 V (common practice textbook example)
+    # Nernst: E = 1.1037 − (0.0591593/2)·log10(0.1/0.001) = 1.044541 V (computed with the CODATA 2018 slope)
     assert r["cell_potential_V"] == pytest.approx(1.0445, abs=5e-5)
+    assert r["cell_potential_V"] == pytest.approx(1.1037 - SLOPE25, abs=1e-9)
     assert r["delta_G_kJ_per_mol"] == pytest.approx(-2 * constants.FARADAY * r["cell_potential_V"] / 1000)
+    # ΔG = −nFE with F = 96 485.332 12 C/mol (CODATA 2018) written out: −201.566 kJ/mol
+    assert r["delta_G_kJ_per_mol"] == pytest.approx(-2 * 96485.33212 * (1.1037 - SLOPE25) / 1000, rel=1e-9)
     assert r["warnings"] == []
 
 
@@ -52,7 +58,7 @@ def test_daniell_cell_with_activities(shipped):
 def test_concentration_cell(shipped):
     r = couple_entry({"a": "Cu2+/Cu", "b": "Cu2+/Cu", "a_conditions": {"activities": {"Cu2+": 0.001}},
                       "b_conditions": {"activities": {"Cu2+": 0.1}}})
-    # Nernst, common practice: E = (0.05916/2)·log10(0.1/0.001) = 0.05916 V; the dilute side is the anode
+    # Nernst: E = (0.0591593/2)·log10(0.1/0.001) = 0.0591593 V (CODATA 2018 slope); the dilute side is the anode
     assert r["cell_potential_V"] == pytest.approx(SLOPE25, abs=1e-9)
     assert r["anode_electrode"]["activities"][0]["activity"] == 0.001
     assert r["standard_cell_potential_V"] == 0.0 and r["log10_K"] == 0.0 and r["equilibrium_constant"] == 1.0
@@ -69,7 +75,7 @@ def test_same_electrode_same_conditions_warns(shipped):
 
 def test_standard_anode_reversal_sn_pb(shipped):
     # E°(Sn2+/Sn) = −0.1375 V < E°(Pb2+/Pb) = −0.1262 V (CRC Table 1): Sn is the standard anode;
-    # with a(Pb2+) = 0.001 lead drops by 0.0887 V and becomes the anode (common practice)
+    # with a(Pb2+) = 0.001 lead drops by (0.0591593/2)·3 = 0.0887 V and becomes the anode (Nernst, computed)
     r = couple_entry({"a": "Sn2+/Sn", "b": "Pb2+/Pb", "activities": {"Pb2+": 0.001, "Sn2+": 1}})
     assert r["anode"] == "Pb2+/Pb" and r["standard_anode"] == "Sn2+/Sn"
     assert r["standard_cell_potential_V"] == pytest.approx(-0.1375 - (-0.1262), abs=1e-9)

@@ -44,7 +44,7 @@ def test_couple_text(shipped, capsys):
     code, out, err = run_cli(capsys, "couple", "Zn2+/Zn", "Cu2+/Cu", "--activity", "Zn2+=0.1", "--activity", "Cu2+=0.001")
     assert code == 0
     assert "anode: Zn2+/Zn" in out and "Derivation:" in out
-    # Nernst: 1.1037 − 0.02958·2 = 1.0445 V (common practice)
+    # Nernst: 1.1037 − (0.0591593/2)·log10(0.1/0.001) = 1.0445 V (CODATA 2018 slope, computed)
     assert re.search(r"cell_potential_V: 1\.0445", out)
 
 
@@ -71,7 +71,8 @@ def test_convert(shipped, capsys):
 def test_activity(shipped, capsys):
     code, out, err = run_cli(capsys, "activity", "Zn2+", "--ionic-strength", "0.01", "--model", "extended", "--json")
     assert code == 0
-    # Kielland (1937) table, from memory: z = 2, å = 6 Å, I = 0.01 → 0.675
+    # Kielland (1937) table, z = 2, å = 6 Å, I = 0.01 → 0.675 (read as reproduced in R. A. Freeze and
+    # J. A. Cherry, Groundwater, Prentice-Hall 1979, Appendix IV, online edition)
     assert json.loads(out)["gamma"] == pytest.approx(0.675, abs=0.003)
 
 

@@ -5,11 +5,14 @@ import math
 
 import pytest
 
-from calc import constants, water
+from calc import water
 from calc.electrode import electrode_entry, nernst
 from calc.errors import InputError
+from oracles import NERNST_SLOPE_V, nernst_slope_V
 
-SLOPE25 = constants.nernst_slope(298.15)
+# The Nernst slope ln10·RT/F is written out from CODATA 2018 R and F (tests/oracles.py), never taken
+# from calc.constants: 0.059 159 35 V per decade at 25 °C.
+SLOPE25 = nernst_slope_V(25.0)
 
 
 def E(id_, **cond):
@@ -19,29 +22,32 @@ def E(id_, **cond):
 # ---------------------------------------------------------------- concentration cells
 
 def test_concentration_cell_by_electrodes(shipped):
-    # Ag+/Ag, n = 1: ten-fold activity ratio gives one Nernst slope (common practice)
+    # Ag+/Ag, n = 1: a ten-fold activity ratio gives one Nernst slope, 59.159 mV at 25 °C
+    # (ln10·RT/F from CODATA 2018 R and F, tests/oracles.py)
     assert E("Ag+/Ag", activities={"Ag+": 0.1}) - E("Ag+/Ag", activities={"Ag+": 0.01}) == pytest.approx(SLOPE25, rel=1e-12)
-    # at 60 °C the slope grows with T (REFERENCE-DATA §1: 66.104 mV at 60 °C)
+    # at 60 °C the slope grows with T: ln10·R·333.15 K/F = 66.104 mV (the same constants)
     d = E("Ag+/Ag", temp_C=60, activities={"Ag+": 0.1}) - E("Ag+/Ag", temp_C=60, activities={"Ag+": 0.01})
     assert d * 1000 == pytest.approx(66.104, abs=0.001)
+    assert d == pytest.approx(NERNST_SLOPE_V[60], rel=1e-9)
 
 
 # ---------------------------------------------------------------- hydrogen and oxygen electrodes
 
 @pytest.mark.parametrize("pH", [0, 1, 4, 7, 10, 14])
 def test_hydrogen_electrode(shipped, pH):
-    # Nernst for 2H+ + 2e- → H2 at p(H2) = 1 bar: E = −0.05916·pH (common practice)
+    # Nernst for 2H+ + 2e- → H2 at p(H2) = 1 bar: E = −(ln10·RT/F)·pH = −0.059159·pH at 25 °C
     assert E("H+/H2", pH=pH) == pytest.approx(-SLOPE25 * pH, abs=1e-12)
-    # the alkaline form H2O/H2 (CRC −0.8277 V) gives the same line within 1 mV
-    # (REFERENCE-DATA §2: −0.05916 × 13.996 = −0.8280)
+    # the alkaline form H2O/H2 (Vanýsek, CRC Handbook 92nd ed. 2011, Table 1: −0.8277 V) gives the same
+    # line within 1 mV: −0.059159 × pKw 13.995 = −0.8279 V (computed)
     assert E("H2O/H2", pH=pH) == pytest.approx(-SLOPE25 * pH, abs=0.001)
 
 
 @pytest.mark.parametrize("pH", [0, 3, 7, 8.2, 14])
 def test_oxygen_electrode(shipped, pH):
-    # 1.229 − 0.05916·pH at p(O2) = 1 bar (CRC Table 1 E° of O2/H2O; common practice)
+    # 1.229 − 0.059159·pH at p(O2) = 1 bar (Vanýsek, CRC Handbook 92nd ed. 2011, Table 1, E° of O2/H2O;
+    # the Nernst equation with the CODATA 2018 slope)
     assert E("O2/H2O", pH=pH) == pytest.approx(1.229 - SLOPE25 * pH, abs=1e-9)
-    # the alkaline form O2/OH- (CRC 0.401 V) agrees within 1 mV (REFERENCE-DATA §2: 1.229 − 0.05916×14 = 0.401)
+    # the alkaline form O2/OH- (the same table: 0.401 V) agrees within 1 mV: 1.229 − 0.059159 × 13.995 = 0.401 V
     assert E("O2/OH-", pH=pH) == pytest.approx(1.229 - SLOPE25 * pH, abs=0.001)
 
 
@@ -49,22 +55,27 @@ def test_oxygen_in_air_pressure_in_atm(shipped):
     # p(O2) = 0.21 atm → a = 0.21 × 1.01325 (standard state 1 bar); n = 4
     e = E("O2/H2O", pH=7, pressures={"O2": 0.21})
     assert e == pytest.approx(1.229 - SLOPE25 * 7 + SLOPE25 / 4 * math.log10(0.21 * 1.01325), abs=1e-12)
+    # written out: 1.229 − 0.414115 − 0.009940 = 0.804945 V
+    assert e == pytest.approx(0.804945, abs=1e-6)
 
 
 def test_water_at_unit_activity_and_hydroxide_from_kw(shipped):
     r = electrode_entry({"id": "O2/OH-", "pH": 9, "temp_C": 50})
     acts = {a["species"]: a for a in r["activities"]}
     assert acts["H2O"]["activity"] == 1.0
-    # a(OH-) = Kw(T)/a(H+), pKw(50 °C) = 13.26 (Bandura & Lvov 2006, from memory)
+    # a(OH-) = Kw(T)/a(H+); pKw(50 °C, 0.1 MPa) = 13.264 in the CRC Handbook of Chemistry and Physics table
+    # "Ionization Constant of Water as a Function of Temperature and Pressure" (computed there with
+    # Bandura & Lvov, J. Phys. Chem. Ref. Data 35 (2006) 15; read in the online edition, section 5)
+    assert acts["OH-"]["activity"] == pytest.approx(10 ** (9 - 13.264), rel=0.003)
     assert acts["OH-"]["activity"] == pytest.approx(10 ** (9 - water.pKw(50)), rel=1e-12)
-    assert water.pKw(50) == pytest.approx(13.26, abs=0.01)
+    assert water.pKw(50) == pytest.approx(13.264, abs=0.001)
 
 
 # ---------------------------------------------------------------- activities from molality
 
 def test_molality_with_model_and_ionic_strength(shipped):
     r = electrode_entry({"id": "Zn2+/Zn", "molalities": {"Zn2+": 0.01, "SO4^2-": 0.01}, "model": "davies"})
-    # I = ½(0.01·4 + 0.01·4) = 0.04; Davies γ(z=2) computed the same way as calc.activity
+    # I = ½(0.01·4 + 0.01·4) = 0.04; Davies γ(z=2) with 0.3·I (C. W. Davies, Ion Association, 1962)
     A = water.debye_huckel_A(25)
     g = 10 ** (-A * 4 * (0.2 / 1.2 - 0.3 * 0.04))
     assert r["potential_V"] == pytest.approx(-0.7618 + SLOPE25 / 2 * math.log10(g * 0.01), abs=1e-12)
@@ -107,8 +118,13 @@ def test_every_half_reaction_computes(shipped):
 
 
 def test_nernst_function():
-    # E = E° − (0.05916/n)·log10 Q (Nernst 1889)
-    assert nernst(0.0, 1, 1.0, 25.0) == pytest.approx(-SLOPE25, rel=1e-12)
+    # E = E° − (ln10·RT/nF)·log10 Q (IUPAC Green Book, 3rd ed. 2007, §2.13), the slope written out from
+    # CODATA 2018 R and F (tests/oracles.py): 59.159 mV at 25 °C, 54.199 mV at 0 °C, 74.041 mV at 100 °C
+    assert nernst(0.0, 1, 1.0, 25.0) == pytest.approx(-0.0591593497, abs=1e-10)
+    for t, slope in NERNST_SLOPE_V.items():
+        assert nernst(0.0, 1, 1.0, t) == pytest.approx(-slope, rel=1e-9), t
+        assert nernst(0.5, 2, -3.0, t) == pytest.approx(0.5 + 1.5 * slope, rel=1e-9), t
+        assert nernst(0.0, 1, 1.0, t) == pytest.approx(-nernst_slope_V(t), rel=1e-9), t
 
 
 # ---------------------------------------------------------------- bad input, each bound
@@ -178,7 +194,9 @@ def test_water_activity_can_be_given(shipped):
 def test_ideal_model_warns_at_real_ionic_strength(shipped):
     r = electrode_entry({"id": "Zn2+/Zn", "molalities": {"Zn2+": 0.01, "SO4^2-": 0.01}, "model": "ideal"})
     # ideal is taken as valid to 0.001 mol/kg only; here I = 0.04 mol/kg
+    # Nernst, n = 2: −0.7618 + (0.059159/2)·log10 0.01 = −0.820959 V
     assert r["potential_V"] == pytest.approx(-0.7618 + SLOPE25 / 2 * math.log10(0.01), abs=1e-12)
+    assert r["potential_V"] == pytest.approx(-0.820959, abs=1e-6)
     assert any(w["field"] == "ionic_strength" for w in r["warnings"])
 
 

@@ -80,7 +80,8 @@ def test_cpt_and_cct_estimates_are_the_formulas_implemented():
 
 
 def test_chloride_of_standard_seawater():
-    # Knudsen S = 1.80655·Cl (PSS-78): S = 35 is chlorinity 19.374 g/kg (from memory)
+    # S = 1.80655·Cl (IHO Hydrographic Dictionary S-32, entry "salinity", read; adopted by IAPO 1963 and
+    # ICES 1964): S = 35 is chlorinity 35/1.80655 = 19.374 g/kg
     assert chloride_from_salinity(35.0) == pytest.approx(19374.0, abs=1.0)
 
 

@@ -26,7 +26,7 @@ def ds():
 
 def test_k1_is_faradays_law():
     # ASTM G102-89 (R2015) Eq. (1): K1 = 3.27e-3 mm·g/(µA·cm·y); rebuilt from F (CODATA 2018) and a
-    # 365.25-day year it is 3.2707e-3 (REFERENCE-DATA §6, computed)
+    # 365.25-day year it is 1e-6 × 365.25 × 86400 × 10 / 96485.33212 = 3.2707e-3 (computed)
     assert g102.K1_MM == pytest.approx(g102.k1_from_faraday(365.25), rel=1e-3)
     assert g102.k1_from_faraday(365.25) == pytest.approx(3.2707e-3, abs=1e-7)
 
@@ -46,34 +46,41 @@ def test_faraday_constant_used_is_codata_2018():
 
 def test_iron_11_6_um_per_year_per_uA_cm2():
     # ASTM G102-89 (R2015), table of equivalent weights and densities: iron EW 27.92 g, ρ 7.87 g/cm³
-    # (from memory); 1 µA/cm² -> 11.6 µm/y (Faraday, computed; REFERENCE-DATA §6 and CP-2b)
+    # (from memory: the inputs here); 1 µA/cm² -> 11.6 µm/y (Faraday's law, computed)
     ew = g102.equivalent_weight({"Fe": 100}).value_g
     assert ew == pytest.approx(27.92, abs=0.005)  # 55.845/2, IUPAC standard atomic weight of Fe
     r = g102.corrosion_rate(1.0, ew, 7.87)
     assert r.penetration_mm_per_year * 1000 == pytest.approx(11.6, abs=0.05)
+    # fully determined by G102 Eq. (1) and the inputs: 3.27e-3 × 27.9225 / 7.87 = 1.16019e-2 mm/y
+    assert r.penetration_mm_per_year == pytest.approx(3.27e-3 * 27.9225 / 7.87, rel=1e-4)
 
 
 def test_zinc_15_0_um_per_year_per_uA_cm2():
-    # ASTM G102-89 (R2015), table: zinc EW 32.68 g, ρ 7.13 g/cm³ (from memory);
-    # 1 µA/cm² -> 15.0 µm/y (Faraday, computed; REFERENCE-DATA §6)
+    # ASTM G102-89 (R2015), table: zinc EW 32.68 g, ρ 7.13 g/cm³ (from memory: the inputs);
+    # 1 µA/cm² -> 3.27e-3 × 32.68 / 7.13 = 1.49879e-2 mm/y, 15.0 µm/y (G102 Eq. 1, computed)
     r = g102.corrosion_rate(1.0, 32.68, 7.13)
     assert r.penetration_mm_per_year * 1000 == pytest.approx(15.0, abs=0.05)
+    assert r.penetration_mm_per_year == pytest.approx(1.49879e-2, rel=1e-5)
 
 
 def test_aluminium_and_copper_rates():
-    # ASTM G102-89 (R2015), table (from memory): Al EW 8.99, ρ 2.70 -> 10.9 µm/y;
-    # Cu EW 31.77, ρ 8.96 -> 11.6 µm/y per µA/cm² (Faraday, computed; REFERENCE-DATA §6)
+    # ASTM G102-89 (R2015), table (from memory: the inputs): Al EW 8.99, ρ 2.70 -> 3.27e-3 × 8.99 / 2.70
+    # = 10.888 µm/y; Cu EW 31.77, ρ 8.96 -> 11.595 µm/y per µA/cm² (G102 Eq. 1, computed)
     assert g102.corrosion_rate(1, 8.99, 2.70).penetration_mm_per_year * 1000 == pytest.approx(10.9, abs=0.05)
     assert g102.corrosion_rate(1, 31.77, 8.96).penetration_mm_per_year * 1000 == pytest.approx(11.6, abs=0.05)
+    assert g102.corrosion_rate(1, 8.99, 2.70).penetration_mm_per_year * 1000 == pytest.approx(10.888, abs=0.001)
+    assert g102.corrosion_rate(1, 31.77, 8.96).penetration_mm_per_year * 1000 == pytest.approx(11.595, abs=0.001)
 
 
 def test_mass_loss_of_iron():
-    # ASTM G102-89 (R2015) Eq. (2): MR = 8.954e-3 × 1 × 27.92 = 0.250 g/(m²·d) (computed)
+    # ASTM G102-89 (R2015) Eq. (2): MR = 8.954e-3 × 1 × 27.92 = 0.2499957 g/(m²·d) (computed)
     assert g102.corrosion_rate(1.0, 27.92, 7.87).mass_loss_g_per_m2_day == pytest.approx(0.250, abs=0.0005)
+    assert g102.corrosion_rate(1.0, 27.92, 7.87).mass_loss_g_per_m2_day == pytest.approx(0.2499957, rel=1e-6)
 
 
 def test_carbon_steel_on_the_shipped_data(ds):
-    # ASTM G102-89 (R2015): 1 µA/cm² on carbon steel is 11.6 µm/y (Faraday, computed; REFERENCE-DATA §6)
+    # ASTM G102-89 (R2015): 1 µA/cm² on carbon steel is 11.6 µm/y (Eq. 1 with the record's EW 27.92 g and
+    # ρ 7.86 g/cm³, both recalled from the G102 table: 3.27e-3 × 27.92 / 7.86 = 11.616 µm/y, computed)
     r = g102.rate_entry({"material": "carbon steel", "current_density_uA_per_cm2": 1})
     assert r["material"] == ds.get("materials", "carbon steel")["id"]
     assert r["penetration_mm_per_year"] * 1000 == pytest.approx(11.6, abs=0.05)
@@ -84,7 +91,7 @@ def test_carbon_steel_on_the_shipped_data(ds):
 
 
 def test_zinc_on_the_shipped_data():
-    # ASTM G102-89 (R2015): zinc 15.0 µm/y per µA/cm² (Faraday, computed; REFERENCE-DATA §6)
+    # ASTM G102-89 (R2015): zinc 15.0 µm/y per µA/cm² (Eq. 1 with the record's EW and density, computed)
     r = g102.rate_entry({"material": "Zn", "current_density_uA_per_cm2": 1.0})
     assert r["penetration_um_per_year"] == pytest.approx(15.0, abs=0.05)
 

@@ -5,10 +5,11 @@ import json
 
 import pytest
 
-from calc import constants, dataset
+from calc import dataset
 from calc.errors import InputError
 from calc.standard import standard_potential
 from calc.refelec import convert, convert_entry, reference_potential, rhe_potential
+from oracles import NERNST_SLOPE_V, published_model_V, stored_reference_electrodes
 from refdata import reference_bundle
 
 TEMPS = [0, 10, 25, 37.5, 60, 100]
@@ -58,17 +59,19 @@ def test_every_electrode_computes_over_0_100(shipped):
 # ---------------------------------------------------------------- published values
 
 def test_she_values_of_common_electrodes(shipped):
-    # REFERENCE-DATA "solid for hard assertions": CSE 0.316-0.318, SCE 0.241, Ag/AgCl sat. KCl 0.197 V
-    # (Szabó & Bakos, Int. J. Corrosion 2010, art. 756950, Table 2)
+    # S. Szabó and I. Bakos, "Reference Electrodes in Metal Corrosion", Int. J. Corrosion 2010, art. 756950,
+    # Table 2: CSE 0.316 V (0.318 V also quoted), SCE 0.2410 V (0.2412 V without junction, Sawyer et al.
+    # 1995), Ag/AgCl sat. KCl 0.1970 V
     assert 0.316 <= reference_potential("CSE").E_V_SHE <= 0.318
     assert reference_potential("SCE").E_V_SHE == pytest.approx(0.241, abs=0.0005)
     assert reference_potential("Ag/AgCl sat. KCl").E_V_SHE == pytest.approx(0.197, abs=0.0005)
 
 
 def test_sce_polynomial_against_table(shipped):
-    # polynomial: Ives & Janz, Reference Electrodes (1961) (from memory); table with liquid junction
-    # (Meites-type table, REFERENCE-DATA §3): 15 °C 0.2511, 20 °C 0.2479, 25 °C 0.2444,
-    # 30 °C 0.2411, 35 °C 0.2376 V; the junction offset 0.2444 − 0.2412 = 3.2 mV is removed
+    # polynomial: Ives & Janz, Reference Electrodes (1961) (from memory); the table with liquid junction
+    # of L. Meites (ed.), Handbook of Analytical Chemistry (McGraw-Hill 1963), read as reproduced in an
+    # online electrochemistry dictionary: 15 °C 0.2511, 20 °C 0.2479, 25 °C 0.2444, 30 °C 0.2411,
+    # 35 °C 0.2376 V; the junction offset 0.2444 − 0.2412 = 3.2 mV is removed
     table = {15: 0.2511, 20: 0.2479, 25: 0.2444, 30: 0.2411, 35: 0.2376}
     for t, e in table.items():
         assert reference_potential("SCE", t).E_V_SHE == pytest.approx(e - 0.0032, abs=0.0004), t
@@ -76,16 +79,20 @@ def test_sce_polynomial_against_table(shipped):
 
 def test_sce_polynomial_value():
     dataset.set_dataset(reference_bundle())
-    # E = 0.2412 − 6.61e-4(t−25) − 1.75e-6(t−25)² − 9.0e-10(t−25)³ at 40 °C (REFERENCE-DATA §3)
+    # E = 0.2412 − 6.61e-4(t−25) − 1.75e-6(t−25)² − 9.0e-10(t−25)³ at 40 °C (Ives & Janz 1961, as quoted by
+    # Sawyer, Sobkowiak & Roberts, Electrochemistry for Chemists, 2nd ed. 1995; from memory): 0.2309
+    # (written out: 0.2412 − 0.009915 − 0.00039375 − 0.0000030375 = 0.2308882125 V)
     x = 15
     assert reference_potential("SCE", 40).E_V_SHE == pytest.approx(0.2412 - 6.61e-4 * x - 1.75e-6 * x ** 2 - 9.0e-10 * x ** 3,
                                                                    abs=1e-12)
+    assert reference_potential("SCE", 40).E_V_SHE == pytest.approx(0.2308882125, abs=1e-12)
 
 
 def test_bates_bower_polynomial(shipped):
     dataset.set_dataset(reference_bundle())
     # Bates & Bower, J. Res. NBS 53 (1954) 283: E° = 0.23659 − 4.8564e-4 t − 3.4205e-6 t² + 5.869e-9 t³
-    # (from memory) → 0.22240 V at 25 °C (REFERENCE-DATA §3), 0.22234 V read as the 25 °C value
+    # (the polynomial from memory; 0.22234 V read as their 25 °C value) → 0.22240 V at 25 °C (computed:
+    # 0.23659 − 0.012141 − 0.0021378 + 0.0000917 = 0.2224029 V, 0.06 mV above the value read)
     assert reference_potential("Ag/AgCl E0", 25).E_V_SHE == pytest.approx(0.22240, abs=1e-5)
     assert reference_potential("Ag/AgCl E0", 0).E_V_SHE == pytest.approx(0.23659, abs=1e-12)
     assert reference_potential("Ag/AgCl E0", 25).warnings == ()
@@ -103,29 +110,82 @@ def test_bates_bower_against_shipped_agcl_coefficient(shipped_bundle):
 
 
 def test_cse_temperature_coefficient(shipped):
-    # +0.9 mV/K (≈ 0.5 mV/°F, an electrode maker's note, REFERENCE-DATA §3): 35 °C is 9 mV above 25 °C
+    # +0.9 mV/K (≈ 0.5 mV/°F, an electrode maker's note, read; recalled in the record, common practice):
+    # 35 °C is 9 mV above 25 °C
     d = reference_potential("CSE", 35).E_V_SHE - reference_potential("CSE", 25).E_V_SHE
     assert d == pytest.approx(0.009, abs=0.0005)
 
 
-def test_cse_to_seawater_silver_chloride(shipped):
-    # With the SHE values of the dataset (thermodynamic convention, CSE ≈ 0.316, Ag/AgCl/sw ≈ 0.25 V):
-    # −0.85 V CSE = −0.85 + 0.316 − 0.25 = −0.784 V Ag/AgCl/sw. The standards' working equivalence
-    # (DNV-RP-B401, EN 12473:2014 Annex C, from memory) rounds the offset to 0.05 V: −0.80 V.
+# ---------------------------------------------------------------- conversions away from 25 °C
+
+@pytest.mark.parametrize("t", [0, 10, 40, 60])
+def test_conversions_between_stored_electrodes_away_from_25_C(shipped, t):
+    # Every ordered pair of stored electrodes: E_to = E_from + E(from, t) − E(to, t), each E(t) from the
+    # temperature model its record publishes (the sources named in data/reference_electrodes.yaml:
+    # Ives & Janz 1961 polynomials, Meites 1963 table slopes, Nernst-computed slopes, CSE +0.9 mV/K),
+    # evaluated in this test. A conversion that keeps 25 °C values fails here for every pair whose
+    # models differ.
+    recs = stored_reference_electrodes()
+    moved = 0
+    for a, b in itertools.permutations(recs, 2):
+        expected = -0.5 + published_model_V(recs[a], t) - published_model_V(recs[b], t)
+        assert convert(-0.5, a, b, t)["value_V"] == pytest.approx(expected, abs=1e-12), (a, b, t)
+        at25 = -0.5 + published_model_V(recs[a], 25) - published_model_V(recs[b], 25)
+        moved += abs(expected - at25) > 0.005
+    assert moved > len(recs)  # many pairs move by more than 5 mV between 25 °C and t
+
+
+# SCE: Ives & Janz (1961) polynomial 0.2412 − 6.61e-4 x − 1.75e-6 x² − 9.0e-10 x³, x = t − 25 (from memory);
+# CSE: 0.316 V + 0.9 mV/K (Szabó & Bakos 2010, Table 2, read; the slope common practice); Ag/AgCl E°:
+# Bates & Bower (1954) 0.23659 − 4.8564e-4 t − 3.4205e-6 t² + 5.869e-9 t³ (from memory). Written out:
+#   SCE  0 °C: 0.2412 + 0.016525 − 0.00109375 + 0.0000140625 = 0.2566453125 V
+#       10 °C: 0.2412 + 0.009915 − 0.00039375 + 0.0000030375 = 0.2507242875 V
+#       40 °C: 0.2412 − 0.009915 − 0.00039375 − 0.0000030375 = 0.2308882125 V
+#       60 °C: 0.2412 − 0.023135 − 0.00214375 − 0.0000385875 = 0.2158826625 V
+#   CSE  0.2935, 0.3025, 0.3295, 0.3475 V at 0, 10, 40, 60 °C
+#   Ag/AgCl E°  0 °C: 0.23659 V
+#       10 °C: 0.23659 − 0.0048564 − 0.00034205 + 0.000005869 = 0.231397419 V
+#       40 °C: 0.23659 − 0.0194256 − 0.0054728 + 0.000375616 = 0.212067216 V
+#       60 °C: 0.23659 − 0.0291384 − 0.0123138 + 0.001267704 = 0.196405504 V
+REFDATA_AT = {0: (0.2566453125, 0.2935, 0.23659), 10: (0.2507242875, 0.3025, 0.231397419),
+              40: (0.2308882125, 0.3295, 0.212067216), 60: (0.2158826625, 0.3475, 0.196405504)}
+
+
+@pytest.mark.parametrize("t", sorted(REFDATA_AT))
+def test_reading_on_cse_expressed_against_sce_and_silver_chloride_at_temperature(t):
+    dataset.set_dataset(reference_bundle())
+    sce, cse, agcl = REFDATA_AT[t]
+    # −0.85 V vs CSE expressed vs SCE: −0.85 + E(CSE, t) − E(SCE, t)
+    assert convert(-0.85, "CSE", "SCE", t)["value_V"] == pytest.approx(-0.85 + cse - sce, abs=1e-12)
+    assert convert(-0.85, "CSE", "Ag/AgCl E0", t)["value_V"] == pytest.approx(-0.85 + cse - agcl, abs=1e-12)
+    assert convert(0.2, "SCE", "CSE", t)["value_V"] == pytest.approx(0.2 + sce - cse, abs=1e-12)
+
+
+
+    # With the SHE values of the dataset (thermodynamic convention, CSE 0.316 V, Szabó & Bakos 2010 Table 2,
+    # read; Ag/AgCl/sw 0.25 V, EN 12473, recalled): −0.85 V CSE = −0.85 + 0.316 − 0.25 = −0.784 V Ag/AgCl/sw,
+    # fully determined by the two values (CSE 0.316-0.318 V in the same table: ±0.002 V).
     r = convert_entry({"value_V": -0.85, "from": "CSE", "to": "Ag/AgCl seawater"})
     assert r["value_V"] == pytest.approx(-0.85 + r["E_from_V_SHE"] - r["E_to_V_SHE"], abs=1e-12)
-    assert r["value_V"] == pytest.approx(-0.784, abs=0.004)
-    assert r["value_V"] == pytest.approx(-0.80, abs=0.02)
+    assert r["value_V"] == pytest.approx(-0.784, abs=0.002)
+    # The standards' working equivalence −0.85 V CSE ≡ −0.80 V Ag/AgCl/sw (DNV-RP-B401, EN 12473:2014
+    # Annex C, from memory) rounds the 0.066 V offset to 0.05 V: the two scales part by 16 mV
+    # (0.014-0.018 V over the CSE spread), not by an arbitrary 20 mV either way.
+    assert r["value_V"] - (-0.80) == pytest.approx(0.016, abs=0.002)
 
 
 def test_sce_to_she(shipped):
-    # −0.85 V vs SCE → −0.85 + 0.2412 = −0.6088 V vs SHE (SCE 0.2412 V, REFERENCE-DATA §3)
+    # −0.85 V vs SCE → −0.85 + 0.2412 = −0.6088 V vs SHE (SCE 0.2412 V without junction: Sawyer, Sobkowiak &
+    # Roberts, Electrochemistry for Chemists, 2nd ed. 1995, as read in an instrument maker's table citing it)
     assert convert(-0.85, "SCE", "SHE")["value_V"] == pytest.approx(-0.6088, abs=1e-9)
 
 
 def test_rhe(shipped):
-    # E(RHE) = −(ln10·RT/F)·pH vs SHE (Nernst): −0.41412 V at pH 7, 25 °C; at 60 °C slope 66.104 mV
-    assert rhe_potential(7, 25) == pytest.approx(-7 * constants.nernst_slope(298.15), rel=1e-12)
+    # E(RHE) = −(ln10·RT/F)·pH vs SHE (Nernst), the slope from CODATA 2018 R and F written out in
+    # tests/oracles.py: −7 × 0.0591593 = −0.41412 V at pH 7, 25 °C; at 60 °C slope 66.104 mV
+    assert rhe_potential(7, 25) == pytest.approx(-7 * NERNST_SLOPE_V[25], rel=1e-9)
+    for t, slope in NERNST_SLOPE_V.items():
+        assert rhe_potential(3.5, t) == pytest.approx(-3.5 * slope, rel=1e-9), t
     assert convert(0.0, "RHE", "SHE", 25, 7)["value_V"] == pytest.approx(-0.41412, abs=1e-5)
     assert convert(0.0, "RHE", "SHE", 60, 1)["value_V"] == pytest.approx(-0.066104, abs=1e-6)
     with pytest.raises(InputError) as exc:

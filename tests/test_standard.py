@@ -4,6 +4,7 @@ import pytest
 
 from calc import constants, dataset
 from calc.standard import gibbs_helmholtz, standard_potential
+from oracles import NERNST_SLOPE_V
 from refdata import reference_bundle
 
 
@@ -11,22 +12,28 @@ from refdata import reference_bundle
 
 def test_faraday_and_gas_constant_match_scipy():
     sc = pytest.importorskip("scipy.constants")
-    # CODATA 2018 via scipy.constants (REFERENCE-DATA §1: F = 96485.33212331, R = 8.31446261815324)
+    # CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 93 (2021) 025010) via scipy.constants:
+    # F = 96485.33212331 C/mol, R = 8.31446261815324 J/(mol·K); also written out, so the check stands without scipy
+    assert constants.FARADAY == pytest.approx(96485.33212331, rel=1e-13)
+    assert constants.R_GAS == pytest.approx(8.31446261815324, rel=1e-13)
     assert constants.FARADAY == pytest.approx(sc.physical_constants["Faraday constant"][0], rel=1e-12)
     assert constants.R_GAS == pytest.approx(sc.R, rel=1e-12)
     assert constants.EPSILON_0 == pytest.approx(sc.epsilon_0, rel=1e-9)
 
 
 def test_nernst_slope_table():
-    # REFERENCE-DATA §1 [C]: ln10·RT/F = 54.199 mV at 0 °C, 59.159 mV at 25 °C, 74.041 mV at 100 °C
+    # ln10·RT/F from CODATA 2018 R and F (computed): 54.199 mV at 0 °C, 59.159 mV at 25 °C, 74.041 mV at 100 °C
     for t, mv in ((0, 54.199), (25, 59.159), (100, 74.041)):
         assert constants.nernst_slope(t + 273.15) * 1000 == pytest.approx(mv, abs=0.001)
+    # the same to 1e-12 V, written out with 30-digit arithmetic in tests/oracles.py
+    for t, slope in NERNST_SLOPE_V.items():
+        assert constants.nernst_slope(t + 273.15) == pytest.approx(slope, abs=1e-12), t
 
 
 # ---------------------------------------------------------------- E°(T)
 
-# NBS entropies (Wagman et al., J. Phys. Chem. Ref. Data 11 Suppl. 2, 1982), read in the
-# OpenStax Chemistry 2e Appendix G copy (REFERENCE-DATA §2): S°(H2) 130.684, S°(H+) 0
+# NBS entropies (Wagman et al., J. Phys. Chem. Ref. Data 11 Suppl. 2, 1982), read in the copy of
+# OpenStax, Chemistry 2e (2019), Appendix G, J/(mol·K): S°(H2) 130.684 (printed 130.7), S°(H+) 0 by convention
 S = {"Ag+": 72.68, "Ag": 42.55, "Cu2+": -99.6, "Cu": 33.15, "Zn2+": -112.1, "Zn": 41.6}
 
 
@@ -42,8 +49,10 @@ def test_temperature_coefficient_from_nbs_entropies(shipped, ion, metal, n):
 
 
 def test_silver_and_copper_at_60_C(shipped):
-    # CRC E° with Bratsch (1989) coefficients (REFERENCE-DATA §2): Ag+/Ag −0.989 mV/K,
-    # Cu2+/Cu +0.011 mV/K: E°(60 °C) = 0.7996 − 0.0346 = 0.7650 V and 0.3419 + 0.0004 = 0.3423 V
+    # E° of Vanýsek, CRC Handbook 92nd ed. (2011), Table 1 (0.7996 and 0.3419 V) with the isothermal
+    # coefficients from the NBS entropies above (the same as Bratsch, J. Phys. Chem. Ref. Data 18 (1989) 1,
+    # Table 1, recalled): Ag+/Ag −0.989 mV/K, Cu2+/Cu +0.011 mV/K, so
+    # E°(60 °C) = 0.7996 − 0.989e-3 × 35 = 0.7650 V and 0.3419 + 0.011e-3 × 35 = 0.3423 V
     assert standard_potential("Ag+/Ag", 60).standard_potential_V == pytest.approx(0.7650, abs=2e-4)
     assert standard_potential("Cu2+/Cu", 60).standard_potential_V == pytest.approx(0.3423, abs=2e-4)
 
