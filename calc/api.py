@@ -29,6 +29,11 @@ ENTRY_POINTS = {
     "cp": "calc.field.cpreading:cp_reading_entry",
     "mixed": "calc.mixed:mixed_entry",
     "passivity": "calc.passivity:passivity_entry",
+    "anodes": "calc.cpdesign.galvanic:anodes_entry",
+    "anode-resistance": "calc.cpdesign.anodes:anode_resistance_entry",
+    "buried": "calc.cpdesign.buried:buried_entry",
+    "groundbed": "calc.cpdesign.impressed:groundbed_entry",
+    "wenner": "calc.cpdesign.resistivity:wenner_entry",
 }
 
 

@@ -14,6 +14,7 @@ from .activity import MODELS
 from .bounds import BOUNDS
 from .errors import DataError, InputError
 from .clitext import format_text
+from .numbers import NumberError, read_number
 from .spec import OPENINGS
 
 def _one_line(message, word_max=60):
@@ -35,6 +36,14 @@ class _Parser(argparse.ArgumentParser):
         sys.exit(2)
 
 
+def _number(text):
+    """An option's number, read by the one rule (calc.numbers): argparse's type for every number."""
+    try:
+        return read_number(text)
+    except NumberError as exc:
+        raise argparse.ArgumentTypeError(str(exc)) from None
+
+
 def _bound(words, name, extra=""):
     """An option's help: its words, then what calc allows (calc.bounds, the page's hints too)."""
     b = BOUNDS[name]
@@ -50,25 +59,22 @@ def _pairs(values, field, number=True):
             raise InputError(field, item, "SPECIES=VALUE, e.g. Zn2+=0.1")
         key, _, val = item.partition("=")
         if number:
-            try:
-                out[key.strip()] = float(val)
-            except ValueError:
-                raise InputError(f"{field} {key.strip()}", val, "a number") from None
+            out[key.strip()] = read_number(val, field=f"{field} {key.strip()}")
         else:
             out[key.strip()] = val
     return out
 
 
 def _conditions(p, with_pH=True):
-    p.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("temperature [°C]", "temp_C", "default 25"))
+    p.add_argument("--temp", type=_number, default=None, metavar="C", help=_bound("temperature [°C]", "temp_C", "default 25"))
     p.add_argument("--activity", action="append", metavar="SP=A", help=_bound("activity of a species [unitless]", "activity"))
     p.add_argument("--molality", action="append", metavar="SP=M", help=_bound("molality of a species [mol/kg]", "molality"))
     g = p.add_mutually_exclusive_group()
-    g.add_argument("--ionic-strength", type=float, metavar="I", help=_bound("ionic strength [mol/kg]", "ionic_strength"))
+    g.add_argument("--ionic-strength", type=_number, metavar="I", help=_bound("ionic strength [mol/kg]", "ionic_strength"))
     g.add_argument("--env", metavar="ENV", help="take the ionic strength from a named environment")
     p.add_argument("--model", metavar="NAME", help="activity model: " + ", ".join(MODELS))
     if with_pH:
-        p.add_argument("--pH", type=float, dest="pH", metavar="X", help=_bound("pH (sets a(H+) and a(OH-))", "pH"))
+        p.add_argument("--pH", type=_number, dest="pH", metavar="X", help=_bound("pH (sets a(H+) and a(OH-))", "pH"))
     else:
         p.set_defaults(pH=None)
     p.add_argument("--pressure", action="append", metavar="GAS=ATM", help=_bound("partial pressure of a gas [atm]", "pressure_atm"))
@@ -96,8 +102,8 @@ def _conditions_request(ns):
 
 def _water_options(p):
     g = p.add_mutually_exclusive_group()
-    g.add_argument("--salinity", type=float, metavar="S", help=_bound("salinity [g/kg]", "salinity"))
-    g.add_argument("--chloride", type=float, metavar="MG_PER_L", help=_bound("chloride instead of salinity [mg/L]", "chloride_mg_per_L"))
+    g.add_argument("--salinity", type=_number, metavar="S", help=_bound("salinity [g/kg]", "salinity"))
+    g.add_argument("--chloride", type=_number, metavar="MG_PER_L", help=_bound("chloride instead of salinity [mg/L]", "chloride_mg_per_L"))
 
 
 def _water_request(ns, req):
@@ -127,49 +133,49 @@ def build_parser():
     _conditions(ep, with_pH=False)
     ep.add_argument("--pH-values", dest="pH_values", metavar="X,Y,...", help="pH values, default 0,1,...,14")
     v = sub.add_parser("convert", help="convert a reading between reference electrodes")
-    v.add_argument("value", type=float, help=_bound("the reading [V]", "value_V"))
+    v.add_argument("value", type=_number, help=_bound("the reading [V]", "value_V"))
     v.add_argument("--from", dest="from_ref", required=True, metavar="REF")
     v.add_argument("--to", dest="to_ref", required=True, metavar="REF")
-    v.add_argument("--temp", type=float, default=None, metavar="C")
-    v.add_argument("--pH", type=float, dest="pH", metavar="X", help=_bound("pH, for RHE", "pH"))
+    v.add_argument("--temp", type=_number, default=None, metavar="C")
+    v.add_argument("--pH", type=_number, dest="pH", metavar="X", help=_bound("pH, for RHE", "pH"))
     a = sub.add_parser("activity", help="activity coefficient of an ion")
     a.add_argument("species")
-    a.add_argument("--ionic-strength", type=float, required=True, metavar="I")
+    a.add_argument("--ionic-strength", type=_number, required=True, metavar="I")
     a.add_argument("--model", metavar="NAME")
-    a.add_argument("--temp", type=float, default=None, metavar="C")
+    a.add_argument("--temp", type=_number, default=None, metavar="C")
     j = sub.add_parser("joint", help="judge a dissimilar-metal joint in an environment")
     j.add_argument("a")
     j.add_argument("b")
     j.add_argument("--env", required=True)
-    j.add_argument("--area-ratio", type=float, metavar="CATHODE_TO_ANODE")
+    j.add_argument("--area-ratio", type=_number, metavar="CATHODE_TO_ANODE")
     m = sub.add_parser("matrix", help="every pair of materials in an environment")
     m.add_argument("--env", required=True)
     m.add_argument("--materials", metavar="A,B,...")
     m.add_argument("--csv", action="store_true", help="write CSV instead of text")
     r = sub.add_parser("rate", help="ASTM G102 penetration and mass-loss rate from a current density")
     r.add_argument("--material", required=True)
-    r.add_argument("--current-density", type=float, required=True, metavar="UA_PER_CM2")
+    r.add_argument("--current-density", type=_number, required=True, metavar="UA_PER_CM2")
     ms = sub.add_parser("measured", help="judge a joint from two potentials measured on site")
     ms.add_argument("--a", dest="a_name", required=True, metavar="NAME", help="label of the first part")
-    ms.add_argument("--a-reading", type=float, required=True, metavar="V", help=_bound("its reading [V vs electrode]", "reading_V"))
+    ms.add_argument("--a-reading", type=_number, required=True, metavar="V", help=_bound("its reading [V vs electrode]", "reading_V"))
     ms.add_argument("--b", dest="b_name", required=True, metavar="NAME", help="label of the second part")
-    ms.add_argument("--b-reading", type=float, required=True, metavar="V", help=_bound("its reading [V vs electrode]", "reading_V"))
+    ms.add_argument("--b-reading", type=_number, required=True, metavar="V", help=_bound("its reading [V vs electrode]", "reading_V"))
     ms.add_argument("--electrode", required=True, metavar="REF", help="reference electrode of both readings")
     ms.add_argument("--env", required=True, metavar="ENV", help="environment (sets the allowable difference)")
-    ms.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("electrode temperature [°C]", "temp_C", "default 25"))
+    ms.add_argument("--temp", type=_number, default=None, metavar="C", help=_bound("electrode temperature [°C]", "temp_C", "default 25"))
     _water_options(ms)
     ms.add_argument("--a-material", metavar="MATERIAL", help="material of the first part, for the published series")
     ms.add_argument("--b-material", metavar="MATERIAL", help="material of the second part")
     cp = sub.add_parser("cp", help="judge a cathodic-protection reading against the published criteria")
-    cp.add_argument("value", type=float, help=_bound("the reading [V vs electrode]", "reading_V"))
+    cp.add_argument("value", type=_number, help=_bound("the reading [V vs electrode]", "reading_V"))
     cp.add_argument("--structure", required=True, metavar="ID", help="e.g. carbon-steel, aluminium")
     cp.add_argument("--setting", required=True, metavar="ID", help="e.g. soil-aerobic, seawater-aerobic")
     cp.add_argument("--electrode", required=True, metavar="REF")
     cp.add_argument("--kind", dest="reading_kind", required=True, metavar="on|instant-off",
                     help="on (current flowing) or instant-off (current just interrupted)")
-    cp.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("electrode temperature [°C]", "temp_C", "default 25"))
-    cp.add_argument("--structure-temp", type=float, default=None, metavar="C", help=_bound("structure temperature [°C]", "structure_temp_C"))
-    cp.add_argument("--polarisation", type=float, default=None, metavar="MV", help=_bound("polarisation shift [mV]", "polarisation_mV"))
+    cp.add_argument("--temp", type=_number, default=None, metavar="C", help=_bound("electrode temperature [°C]", "temp_C", "default 25"))
+    cp.add_argument("--structure-temp", type=_number, default=None, metavar="C", help=_bound("structure temperature [°C]", "structure_temp_C"))
+    cp.add_argument("--polarisation", type=_number, default=None, metavar="MV", help=_bound("polarisation shift [mV]", "polarisation_mV"))
     _water_options(cp)
     d = sub.add_parser("data", help="maintainer tools for the dataset")
     dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
@@ -182,11 +188,21 @@ def build_parser():
                                       "the request as JSON on standard input")
     pv = sub.add_parser("passivity", help="PREN and pitting/crevice temperature estimates of a stainless or nickel alloy")
     for opt, what in (("--cr", "chromium"), ("--mo", "molybdenum"), ("--n", "nitrogen")):
-        pv.add_argument(opt, type=float, required=True, metavar="%", help=f"{what} [wt %%]")
-    pv.add_argument("--w", type=float, metavar="%", help="tungsten [wt %%]")
-    pv.add_argument("--temp", type=float, default=None, metavar="C", help=_bound("service temperature [°C]", "temp_C"))
+        pv.add_argument(opt, type=_number, required=True, metavar="%", help=f"{what} [wt %%]")
+    pv.add_argument("--w", type=_number, metavar="%", help="tungsten [wt %%]")
+    pv.add_argument("--temp", type=_number, default=None, metavar="C", help=_bound("service temperature [°C]", "temp_C"))
     _water_options(pv)
-    for sp in (e, c, ep, v, a, j, m, r, ms, cp, mx, pv):
+    stdin_json = [mx]
+    for name, words in (("anodes", "galvanic-anode design of an immersed structure (DNV-RP-B401 method)"),
+                        ("anode-resistance", "resistance and output of one galvanic anode by its shape"),
+                        ("buried", "galvanic anodes for a buried structure (MIL-HDBK-1004/10 method)"),
+                        ("groundbed", "impressed-current groundbed: resistance, rectifier, anode life")):
+        stdin_json.append(sub.add_parser(name, help=words + "; the request as JSON on standard input"))
+    wn = sub.add_parser("wenner", help="soil resistivity from a Wenner four-pin reading (ASTM G57: ρ = 2πaR)")
+    wn.add_argument("--spacing-m", dest="spacing_m", type=_number, required=True, metavar="A", help="pin spacing [m]")
+    wn.add_argument("--resistance-ohm", dest="resistance_ohm", type=_number, required=True, metavar="R",
+                    help="the meter's resistance reading [Ω]")
+    for sp in (e, c, ep, v, a, j, m, r, ms, cp, pv, wn, *stdin_json):
         sp.add_argument("--json", action="store_true", help="print one JSON object")
     return p
 
@@ -204,11 +220,8 @@ def _request(ns):
             req["temp_C"] = cond["temp_C"]
         if ns.pH_values is not None:
             req["pH_values"] = []
-            for item in ns.pH_values.split(","):
-                try:
-                    req["pH_values"].append(float(item))
-                except ValueError:
-                    raise InputError("--pH-values", item, "numbers separated by commas, e.g. 0,7,14") from None
+            for item in ns.pH_values.split(","):  # the comma separates the values: each has a point, if any
+                req["pH_values"].append(read_number(item, field="--pH-values"))
         return req
     if cmd == "convert":
         req = {"value_V": ns.value, "from": ns.from_ref, "to": ns.to_ref}
@@ -253,7 +266,7 @@ def _request(ns):
         if ns.polarisation is not None:
             req["polarisation_mV"] = ns.polarisation
         return _water_request(ns, req)
-    if cmd == "mixed":
+    if cmd in ("mixed", "anodes", "anode-resistance", "buried", "groundbed"):
         try:
             req = json.loads(sys.stdin.read())
         except ValueError as exc:
@@ -263,6 +276,8 @@ def _request(ns):
         if not isinstance(req, dict):
             raise InputError("request", type(req).__name__, "a JSON object")
         return req
+    if cmd == "wenner":
+        return {"spacing_m": ns.spacing_m, "resistance_ohm": ns.resistance_ohm}
     if cmd == "passivity":
         req = {"cr": ns.cr, "mo": ns.mo, "n": ns.n}
         if ns.w is not None:
@@ -349,7 +364,7 @@ def main(argv=None):
         return 2
     try:
         request = _request(ns)
-    except InputError as exc:
+    except (InputError, NumberError) as exc:
         sys.stderr.write(f"couplewise: {exc}\n")
         return 2
     out = api.call(ns.command, request)

@@ -17,6 +17,11 @@ HEADLINE = {
     "cp": ["verdict_label", "verdict_text", "reading_kind", "ir_drop"],
     "mixed": ["E_mixed_V", "galvanic_current_A"],
     "passivity": ["pren", "pren_formula", "cpt_C", "cct_C", "holds", "reason"],
+    "anodes": ["net_mass_kg", "count", "governed_by", "driving_V", "life_of_count_years"],
+    "anode-resistance": ["shape", "resistance_ohm", "formula"],
+    "buried": ["current_required_A", "anode_output_mA", "count", "governed_by", "life_of_count_years"],
+    "groundbed": ["resistance_ohm", "single_anode_ohm", "count", "life_years"],
+    "wenner": ["resistivity_ohm_m", "resistivity_ohm_cm", "depth_m"],
 }
 
 

@@ -39,7 +39,7 @@ from hypothesis import strategies as st
 from calc import api, cli
 from calc.activity import VALID_I_MAX
 from calc.conditions import ACTIVITY_MAX, PRESSURE_MAX_ATM
-from calc.constants import T_ZERO_C, nernst_slope
+from oracles import nernst_slope_V
 from calc.field.criteria import READING_KINDS, catalogue
 
 #: the CP structure and setting ids of the shipped data (data/cp_structures.yaml, cp_settings.yaml)
@@ -265,6 +265,10 @@ FIELDS = {
                   {"w": number(0, 5, [0.6]), "temp_C": CONDITIONS["temp_C"], "salinity": number(1e-3, 45, [2, 35]),
                    "chloride_mg_per_L": number(1e-3, 25000, [200, 19000])}),
 }
+# the design entry points: each field of a worked request (tests/test_cpdesign_robustness.py) kept or made junk
+from test_cpdesign_robustness import VALID as _DESIGN  # noqa: E402
+
+FIELDS.update({name: ({k: F(st.just(v), JUNK) for k, v in req.items()}, {}) for name, (_, req) in _DESIGN.items()})
 assert sorted(FIELDS) == sorted(api.ENTRY_POINTS), "every entry point has a request strategy here"
 
 
@@ -479,6 +483,9 @@ COMMANDS = {
     "passivity": ([], [("--cr", num_arg(0, 40, [22])), ("--mo", num_arg(0, 10, [3])), ("--n", num_arg(0, 1, [0.17]))],
                   [("--w", num_arg(0, 5)), ("--temp", num_arg(0, 100)), ("--salinity", num_arg(1e-3, 45, [35])),
                    ("--chloride", num_arg(1e-3, 25000)), ("--json", SWITCH)], ("--salinity", "--chloride")),
+    "wenner": ([], [("--spacing-m", num_arg(0.1, 100, [3])), ("--resistance-ohm", num_arg(0.01, 1000, [2]))],
+               [("--json", SWITCH)], ()),
+    **{name: ([], [], [("--json", SWITCH)], ()) for name in ("anodes", "anode-resistance", "buried", "groundbed")},
 }
 assert sorted(COMMANDS) == sorted(api.ENTRY_POINTS), "every calculation command has an argument strategy here"
 
@@ -596,9 +603,11 @@ def test_ends_of_the_temperature_range(temp):
     assert v["temp_C"] == temp
     a = ok("activity", {"species": "Zn2+", "ionic_strength": 0.01, "temp_C": temp})
     assert 0 < a["gamma"] < 1
-    # the RHE at the ends: E = −(ln10·R·T/F)·pH (Nernst equation; CODATA 2018 R, F: common practice)
+    # the RHE at the ends: E = −(ln10·R·T/F)·pH (Nernst equation), the slope from CODATA 2018 R and F
+    # written out in tests/oracles.py: −0.379392 V at 0 °C, −0.518287 V at 100 °C (pH 7)
     r = ok("convert", {"value_V": 0.0, "from": "RHE", "to": "SHE", "temp_C": temp, "pH": 7})
-    assert r["value_V"] == pytest.approx(-nernst_slope(temp + T_ZERO_C) * 7, abs=1e-12)
+    assert r["value_V"] == pytest.approx(-nernst_slope_V(temp) * 7, abs=1e-12)
+    assert r["value_V"] == pytest.approx({0: -0.379392, 100: -0.518287}[temp], abs=1e-6)
     for bad in (-1e-9, 100.000001):
         for name, req in (("electrode", {"id": "Zn2+/Zn"}), ("convert", {"value_V": 0, "from": "SCE", "to": "SHE"}),
                           ("activity", {"species": "Zn2+", "ionic_strength": 0.01})):
@@ -640,8 +649,8 @@ def test_temperature_outside_a_records_stated_range_is_warned():
 def test_activity_at_the_ends_of_the_dilute_range(a):
     """a(Zn2+) = 1e-12 and 10 give the Nernst value; 10 is the last activity without a warning."""
     res = ok("electrode", {"id": "Zn2+/Zn", "activities": {"Zn2+": a}})
-    # Nernst: E = E° − (ln10·RT/2F)·log10(1/a) (common practice)
-    assert res["potential_V"] == pytest.approx(res["standard_potential_V"] + nernst_slope(298.15) / 2 * math.log10(a),
+    # Nernst: E = E° − (ln10·RT/2F)·log10(1/a), the slope from CODATA 2018 R and F (tests/oracles.py)
+    assert res["potential_V"] == pytest.approx(res["standard_potential_V"] + nernst_slope_V(25.0) / 2 * math.log10(a),
                                                abs=1e-12)
     assert "far outside the dilute" not in warning_text(res)
     above = ok("electrode", {"id": "Zn2+/Zn", "activities": {"Zn2+": 10.000001}})

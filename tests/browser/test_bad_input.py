@@ -16,6 +16,11 @@ pytestmark = pytest.mark.browser
 RUNTIME_MS = 240_000
 #: never a number, in any field
 NEVER = ["abc", "NaN", "Infinity", "-Infinity", "1e999", "１２", "٣", "½", "<b>1</b>", "1..2", "12 abc", "🧪"]
+#: forms that look like numbers and are refused by the one rule (docs/assets/js/numbers.mjs,
+#: tests/fixtures/numbers.json): thousands separators, other bases, underscores, several marks;
+#: and echoes that must not mislead: a right-to-left override, a long value
+NEVER += ["1,000", "12,345", "0x10", "0b11", "0o7", "1_000", "1.000,5", "1,2,3", "2\u202e5", "7" * 3000 + "x"]
+BIDI_CONTROLS = "\u061c\u200e\u200f\u202a\u202b\u202c\u202d\u202e\u2066\u2067\u2068\u2069"
 #: a number some fields accept and others refuse (or, for empty, a field that may be left empty)
 MAYBE = ["", "-5", "0", "-0", "1e308", "-1e308", "5e-324", "100000"]
 RESULT_READY = "performance.getEntriesByName('cw-result-painted').length > 0"
@@ -30,8 +35,11 @@ FIELDS = """[...document.querySelectorAll('.cw-form input[inputmode=decimal]')]
 MESSAGE = """(id) => {
   const input = document.getElementById(id), msg = document.getElementById(id + '-msg');
   return {text: msg ? msg.textContent : null, beside: !!(msg && input.closest('.cw-field').contains(msg)),
-          invalid: input.getAttribute('aria-invalid')};
+          invalid: input.getAttribute('aria-invalid'), isolated: msg ? msg.querySelectorAll('bdi').length : 0,
+          height: msg ? msg.getBoundingClientRect().height : 0};
 }"""
+STALE_NOTE = """() => { const r = [...document.querySelectorAll('.cw-result.cw-stale')];
+  return r.map((e) => (document.getElementById(e.getAttribute('aria-describedby')) || {}).textContent || ''); }"""
 
 
 def calculator_paths():
@@ -82,6 +90,12 @@ def test_bad_input_in_every_field(served, guarded, name):
             assert "\n" not in m["text"] and len(m["text"]) < 300, (fid, value, m)
             assert value.strip() in m["text"] or "number" in m["text"] or "Enter" in m["text"], (fid, value, m)
             assert page.locator(".cw-result.cw-stale").count() == 1, f"{fid} = {value!r}: old result not greyed"
+            # the echo: isolated, no control character acting on the message, never the whole long value
+            assert m["isolated"] == 1 and not any(c in m["text"] for c in BIDI_CONTROLS), (fid, value, m)
+            assert m["height"] < 200, (fid, value[:20], m["height"])  # a 100 kB value once made a 59,557 px box
+            # the old result says in words that it is not for the current inputs
+            notes = page.evaluate(STALE_NOTE)
+            assert len(notes) == 1 and "not for the current inputs" in notes[0], (fid, value[:20], notes)
             checked += 1
         for value in MAYBE:
             type_into(page, fid, value)

@@ -164,17 +164,22 @@ def _params_of(page):
     return dict(page.evaluate("[...new URLSearchParams(location.search).entries()]"))
 
 
-CALCULATORS = ["couple", "electrode", "convert", "activity", "joint", "matrix"]
+def _opened(page, srv, name):
+    """Open a calculator with its opening inputs; the URL parameters it writes for them."""
+    page.goto(srv.url(f"calculators/{name}/"))
+    page.locator(".cw-form").first.wait_for(timeout=RUNTIME_MS)
+    page.wait_for_function("location.search.length > 1", timeout=30_000)
+    return _params_of(page)
+
+
+CALCULATORS = ["couple", "electrode", "convert", "activity", "joint", "matrix", "field"]
 
 
 @pytest.mark.parametrize("name", CALCULATORS)
 def test_calculator_with_hostile_data_and_url(hostile, page_of, name):
     srv, site = hostile
     page, guard = page_of()
-    page.goto(srv.url(f"calculators/{name}/"))
-    page.locator(".cw-form").wait_for(timeout=RUNTIME_MS)
-    page.wait_for_function("location.search.length > 1", timeout=30_000)
-    params = _params_of(page)
+    params = _opened(page, srv, name)
     assert params, "the calculator writes its inputs into the URL"
     if name in ("joint", "matrix"):  # the hostile material in the calculation: its name shows as text
         query = {"a": MATERIAL, "b": "copper", "env": "seawater-flowing", "ar": "1"} if name == "joint" else \
@@ -188,7 +193,7 @@ def test_calculator_with_hostile_data_and_url(hostile, page_of, name):
         query = {k: payload for k in params}
         page.goto(srv.url(f"calculators/{name}/?" + urlencode(query)))
         page.wait_for_load_state("load")
-        page.locator(".cw-form").wait_for(timeout=RUNTIME_MS)
+        page.locator(".cw-form").first.wait_for(timeout=RUNTIME_MS)
         page.wait_for_timeout(800)
         # typed fields keep the text as typed, and their message quotes it as text
         shown = page.evaluate("""(p) => [...document.querySelectorAll('.cw-form input[type=text]')]
@@ -201,3 +206,34 @@ def test_calculator_with_hostile_data_and_url(hostile, page_of, name):
         if shown:
             assert any(v == payload for _, v, _ in shown), f"{name}: no field shows the payload as typed"
             assert any(payload in m for _, _, m in shown), f"{name}: no message quotes the payload"
+
+
+#: forms the one number rule refuses (tests/fixtures/numbers.json), and echoes that must not mislead:
+#: a right-to-left override and a long value (its length keeps the whole link under the server's limit)
+NUMBER_FORMS = ["0x10", "1,000", "1_000", "Infinity", "NaN", "1.000,5", "12\u202e3", "9" * 2000 + "x"]
+NUMBER_FIELDS = """() => [...document.querySelectorAll('.cw-form input[inputmode=decimal]')]
+  .filter((i) => !i.closest('[hidden]')).map((i) => { const m = document.getElementById(i.id + '-msg');
+    return { id: i.id, value: i.value, text: m.textContent, isolated: m.querySelectorAll('bdi').length,
+             height: m.getBoundingClientRect().height }; })"""
+
+
+@pytest.mark.parametrize("name", [c for c in CALCULATORS if c != "matrix"])
+def test_refused_number_forms_in_every_url_parameter(hostile, page_of, name):
+    """A shared link whose every parameter holds a form the rule refuses: each number field says
+    what was read, in an isolated and cut echo; nothing is calculated and the result area says
+    what was wrong; nothing runs."""
+    srv, site = hostile
+    page, guard = page_of()
+    params = _opened(page, srv, name)
+    for form in NUMBER_FORMS:
+        page.goto(srv.url(f"calculators/{name}/?" + urlencode({k: form for k in params})))
+        page.locator(".cw-result ul.cw-pending").first.wait_for(timeout=RUNTIME_MS)
+        fields = [f for f in page.evaluate(NUMBER_FIELDS) if f["value"] == form]
+        assert fields, f"{name}: no number field holds {form[:20]!r}"
+        for f in fields:
+            assert f["text"] and f["isolated"] == 1 and "\u202e" not in f["text"], (name, form[:20], f)
+            assert len(f["text"]) < 300 and f["height"] < 200, (name, form[:20], f)
+        assert page.locator(".cw-result [data-cw-value], .cw-result .cw-big").count() == 0, (name, form[:20])
+        assert "\u202e" not in page.locator("article").inner_text()
+        assert_inert(page, guard, f"{name} with {form[:20]!r} in every parameter")
+

@@ -147,6 +147,8 @@ def test_bad_input_is_never_saved(browser, served, tmp_path):
 
 #: the classes of bad input typed into every number field of the calculators (test_bad_input.py)
 NEVER = ["abc", "NaN", "Infinity", "-Infinity", "1e999", "１２", "٣", "½", "<b>1</b>", "1..2", "12 abc", "🧪"]
+#: and the forms the one rule refuses (tests/fixtures/numbers.json), an override and a long value
+NEVER += ["1,000", "12,345", "0x10", "0b11", "0o7", "1_000", "1.000,5", "1,2,3", "2\u202e5", "7" * 3000 + "x"]
 #: the survey's number fields with a good value each; salinity shows with the seawater electrode
 SWEEP = [("cw-s-v", "-0.912"), ("cw-s-t", "15"), ("cw-s-p", "120"), ("cw-s-s", "20")]
 
@@ -171,6 +173,7 @@ def test_every_kind_of_junk_in_every_number_field_is_refused_at_the_field(browse
                 expect(page.locator(f"#{fid}-msg")).not_to_have_text("", timeout=10_000)
                 text = page.locator(f"#{fid}-msg").inner_text()
                 assert "\n" not in text.strip() and len(text) < 300, (fid, value, text)
+                assert "\u202e" not in text and page.locator(f"#{fid}-msg bdi").count() == 1, (fid, value[:20], text)
                 assert page.locator(f"#{fid}").get_attribute("aria-invalid") == "true", (fid, value)
                 assert page.locator(f"#{fid}").evaluate("(e) => e.closest('.cw-field').contains("
                                                         "document.getElementById(e.id + '-msg'))"), (fid, value)

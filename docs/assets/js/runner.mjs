@@ -1,6 +1,7 @@
 // The runner of a calculator: sends the form's request to the worker as the inputs change,
-// greys a result that no longer matches the inputs, shows calc's refusal at the field it names,
-// and paints the build-time answer of the opening request while the runtime starts.
+// marks a result that no longer matches the inputs (grey, and a note in words that the result is
+// described by), shows calc's refusal at the field it names, says what is wrong where there is
+// no result yet, and paints the build-time answer of the opening request while the runtime starts.
 import { calculate, h, onRuntime, precomputedAnswers } from "./site.mjs";
 import { fill } from "./ui.mjs";
 
@@ -9,6 +10,26 @@ export function canonical(v) {
   if (Array.isArray(v)) return "[" + v.map(canonical).join(",") + "]";
   if (v && typeof v === "object") return "{" + Object.keys(v).sort().map((k) => JSON.stringify(k) + ":" + canonical(v[k])).join(",") + "}";
   return JSON.stringify(v === undefined ? null : v);
+}
+
+// The fields of a form marked invalid, as [label, message parts] (the message's nodes cloned).
+function invalidFields(form) {
+  return [...form.querySelectorAll("[aria-invalid=true]")].filter((c) => !c.closest("[hidden]")).map((c) => {
+    const label = form.querySelector("label[for=\"" + CSS.escape(c.id) + "\"]");
+    const msg = document.getElementById(c.id + "-msg");
+    return [label ? label.textContent : c.id, msg ? [...msg.childNodes].map((n) => n.cloneNode(true)) : []];
+  });
+}
+
+// The note beside a result that is not for the current inputs: made on first use, before the
+// result; the result names it in aria-describedby while it applies.
+let noteIds = 0;
+function staleNote(ui) {
+  if (!ui.staleNote) {
+    ui.staleNote = h("div", { class: "cw-stale-note", id: "cw-stale-" + ++noteIds, "aria-live": "polite" });
+    ui.result.before(ui.staleNote);
+  }
+  return ui.staleNote;
 }
 
 function runtimeStage() {
@@ -31,7 +52,28 @@ export function runner(ui, name, onResult, fieldFor) {
   let running = null;
   let queued = null;
   let refused = null; // [field, message] of calc's last refusal shown at a field
-  function setStale(stale) { ui.result.classList.toggle("cw-stale", stale && hasResult); }
+  // stale: the result shown is not for the inputs; busy: their own result is on its way.
+  function setStale(stale, busy = false) {
+    const on = stale && hasResult;
+    ui.result.classList.toggle("cw-stale", on);
+    if (!on) {
+      if (ui.staleNote) ui.staleNote.replaceChildren();
+      ui.result.removeAttribute("aria-describedby");
+      return;
+    }
+    const names = invalidFields(ui.formBox).map(([label]) => label);
+    const what = busy ? "their result is on its way." : names.length ? "correct " + names.join(", ") + " above." :
+      "see the message above.";
+    fill(staleNote(ui), h("p", { class: "cw-pending", role: "note" }, h("span", { class: "cw-badge", text: "out of date" }),
+      ": the result below is not for the current inputs; " + what));
+    ui.result.setAttribute("aria-describedby", ui.staleNote.id);
+  }
+  // Where there is no result yet: what is wrong, field by field (a shared link with a bad value).
+  function showPending() {
+    const wrong = invalidFields(ui.formBox);
+    fill(ui.result, h("p", { class: "cw-pending", text: "No result yet: correct the input above." }),
+      wrong.length ? h("ul", { class: "cw-pending" }, wrong.map(([label, msg]) => h("li", {}, h("strong", { text: label }), ": ", msg))) : null);
+  }
   function clearRefusal() {
     if (refused && refused[0].msg.textContent === refused[1]) refused[0].setError("");
     refused = null;
@@ -55,7 +97,12 @@ export function runner(ui, name, onResult, fieldFor) {
   }
   async function go(request, clientErrors) {
     const my = ++ticket;
-    if (clientErrors) { setStale(true); return; }
+    if (clientErrors) {
+      setStale(true);
+      if (!hasResult) showPending();
+      return;
+    }
+    if (ui.result.classList.contains("cw-stale")) setStale(true, true);
     ui.result.setAttribute("aria-busy", "true");
     const answer = calculate(name, request);
     if (first) { first = false; await showEarly(my, request, answer); }
@@ -81,7 +128,7 @@ export function runner(ui, name, onResult, fieldFor) {
       if (f) { f.setError(out.error.message); refused = [f, out.error.message]; }
       else ui.formMsg.textContent = out.error.message;
       setStale(true);
-      if (!hasResult) fill(ui.result, h("p", { class: "cw-pending", text: "No result yet: correct the input above." }));
+      if (!hasResult) showPending();
     }
   }
   async function pump() {

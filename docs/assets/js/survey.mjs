@@ -4,32 +4,37 @@
 // Rules: a reading is checked first (the form, then calc); only a complete, valid reading is
 // written; it is shown as saved only after the write has completed (durable transaction). So a
 // closed tab, a crash, a reload or a flat battery loses nothing that was shown as saved. Nothing
-// leaves the device unless the user exports it (CSV or JSON); a JSON export can be imported
-// again (merged by the readings' ids, so nothing is doubled).
+// leaves the device unless the user exports it (CSV or JSON); either export can be imported
+// again (merged by the readings' ids, so nothing is doubled; a CSV's readings are judged again).
 //
-// A number field is refused here when it is not a number, or when it lies outside calc's bound
-// (spec.json), which is the check every record of the log passes (recordProblem), imported too;
-// calc then judges the reading, and its refusal is shown at the field it names.
+// A number field is refused here when it is not a number by the one rule (ui.mjs readNumber),
+// or when it lies outside calc's bound (spec.json), which is the check every record of the log
+// passes (recordProblem), imported too; calc then judges the reading, and its refusal is shown
+// at the field it names. A second press of save on the form just emptied by a save (a click,
+// then Enter) saves nothing and leaves the message of the save standing. The form's draft is
+// written to IndexedDB a moment after each change, and the page says what a draft keeps.
 import { calculate } from "./site.mjs";
 import {
   AGAGCL_SW, KIND_OPTIONS, SETTING_NAMES, STRUCTURE_NAMES, cpBadge, cpResultNodes, electrodeOptions, fillSelect,
   settingOptions, structureOptions,
 } from "./field.mjs";
 import {
-  DRAFT_KEY, TIME_RE, allRecords, clearRecords, download, exportCsv, exportJson, judgementOf, localNow, mergeRecords,
-  newId, openDb, parseImport, putRecord, recordProblem, requestOf, sortLog, stamp, withinBound,
+  TIME_RE, allRecords, clearRecords, download, exportCsv, exportJson, judgementOf, localNow, mergeRecords, newId, openDb,
+  openDraft, parseCsvImport, parseImport, putRecord, readDraft, recordProblem, requestOf, sortLog, stamp, withinBound, writeDraft,
 } from "./surveylog.mjs";
 import {
-  allowed, begin, field, fieldMap, fill, h, hint, known, numberInput, readNumber, select, signed,
+  allowed, begin, echo, field, fieldMap, fill, h, hint, isolated, known, numberInput, readNumber, select, signed,
 } from "./ui.mjs";
+
+const DRAFT_DELAY_MS = 300; // the draft is written this long after the last change
 
 const SURVEY_START = { el: "CSE", t: "15", st: "carbon-steel", set: "soil-aerobic", k: "instant-off" };
 
 export async function survey(root) {
   const { ui, ds, sp } = await begin(root, "Survey log", "survey");
   const bounds = sp.bounds || {};
-  let draft = {};
-  try { draft = JSON.parse(localStorage.getItem(DRAFT_KEY) || "{}") || {}; } catch (err) { draft = {}; }
+  const draftDb = await openDraft();
+  const draft = await readDraft(draftDb);
   const d = (k, dflt) => (typeof draft[k] === "string" ? draft[k] : dflt);
   const elIds = new Set(ds.reference_electrodes.map((r) => r.id));
   const stOpts = structureOptions(ds);
@@ -53,7 +58,10 @@ export async function survey(root) {
     h("div", { class: "cw-row" }, vField.el, elField.el, kField.el),
     h("div", { class: "cw-row" }, tField.el, stField.el, setField.el),
     h("div", { class: "cw-row" }, pField.el, sField.el),
-    notesField.el, h("div", { class: "cw-actions-row" }, addBtn));
+    notesField.el, h("div", { class: "cw-actions-row" }, addBtn),
+    h("p", { class: "cw-field-help cw-draft-note", text: "A reading is in the log only once it is saved. Until then the form is kept " +
+      "on this device as a draft, written a moment after each change and shown again when the page opens; what was typed in " +
+      "the last moment before a crash can be lost." }));
   const saved = h("p", { class: "cw-saved", role: "status", "aria-live": "polite" });
   ui.formMsg.after(saved);
 
@@ -64,8 +72,9 @@ export async function survey(root) {
     h("thead", {}, h("tr", {}, ["Time", "Location", "Reading", "Structure and setting", "Verdict", "Notes"].map((t) => h("th", { scope: "col", text: t })))), logBody));
   const exportCsvBtn = h("button", { type: "button", class: "md-button cw-touch cw-export-csv", text: "Export CSV" });
   const exportJsonBtn = h("button", { type: "button", class: "md-button cw-touch cw-export-json", text: "Export JSON" });
-  const importInput = h("input", { type: "file", accept: ".json,application/json", class: "cw-import-input" });
-  const importField = field("cw-s-import", "Import a log exported as JSON (merged: readings already here are kept once)", importInput);
+  const importInput = h("input", { type: "file", accept: ".json,.csv,application/json,text/csv", class: "cw-import-input" });
+  const importField = field("cw-s-import", "Import a log exported as JSON or CSV (merged: readings already here are kept once; " +
+    "the readings of a CSV are judged again)", importInput);
   const clearBtn = h("button", { type: "button", class: "md-button cw-touch cw-clear", text: "Clear the log…" });
   const confirmBox = h("div", { class: "cw-confirm", role: "alertdialog", "aria-labelledby": "cw-s-confirm-text", hidden: true });
   const toolsMsg = h("p", { class: "cw-tools-msg", role: "status", "aria-live": "polite" });
@@ -85,12 +94,22 @@ export async function survey(root) {
   }
   const channel = "BroadcastChannel" in window ? new BroadcastChannel("couplewise-survey") : null;
 
+  let draftTimer = 0;
   function saveDraft() {
+    clearTimeout(draftTimer);
+    draftTimer = 0;
     const draftNow = { loc: locField.control.value, time: timeField.control.value, v: vField.control.value, el: elField.control.value,
       k: kField.control.value, t: tField.control.value, st: stField.control.value, set: setField.control.value, p: pField.control.value,
       s: sField.control.value, notes: notesField.control.value };
-    try { localStorage.setItem(DRAFT_KEY, JSON.stringify(draftNow)); } catch (err) { /* storage full or refused: the draft is a convenience */ }
+    if (draftDb) writeDraft(draftDb, draftNow).catch(() => { /* storage full or refused: the draft is a convenience */ });
   }
+  function saveDraftSoon() {
+    clearTimeout(draftTimer);
+    draftTimer = setTimeout(saveDraft, DRAFT_DELAY_MS);
+  }
+  // a page put away (tab switched, phone locked, closed) writes its draft at once
+  window.addEventListener("pagehide", () => { if (draftTimer) saveDraft(); });
+  document.addEventListener("visibilitychange", () => { if (document.hidden && draftTimer) saveDraft(); });
 
   function verdictCell(r) {
     const j = r.judgement;
@@ -163,8 +182,10 @@ export async function survey(root) {
     reading_kind: kField, polarisation_mV: pField, salinity: sField });
 
   let busy = false;
+  let justSaved = false; // a reading was saved and the form, emptied for the next, not touched since
   async function add() {
     if (busy || !db) return;
+    if (justSaved) { locField.control.focus(); return; } // the same press again (a click, then Enter): saved once
     saved.textContent = "";
     ui.formMsg.textContent = "";
     const { bad, rec } = collect();
@@ -199,7 +220,7 @@ export async function survey(root) {
       }
       records.push(rec);
       renderLog();
-      saved.textContent = "Saved: " + rec.location + ", " + signed(rec.reading_V, 3) + " V vs " + rec.electrode + ". " + records.length + (records.length === 1 ? " reading" : " readings") + " on this device.";
+      fill(saved, "Saved: ", isolated(rec.location), ", " + signed(rec.reading_V, 3) + " V vs " + rec.electrode + ". " + records.length + (records.length === 1 ? " reading" : " readings") + " on this device.");
       if (channel) channel.postMessage({ type: "changed" });
       if (navigator.storage && navigator.storage.persist) navigator.storage.persist().catch(() => {});
       // ready for the next reading: same electrode, temperature, structure and setting
@@ -207,6 +228,7 @@ export async function survey(root) {
       timeField.control.value = localNow();
       saveDraft();
       locField.control.focus();
+      justSaved = true; // after the focus moved: a change event it causes does not undo it
     } finally {
       busy = false;
       addBtn.disabled = !db;
@@ -214,11 +236,12 @@ export async function survey(root) {
   }
 
   ui.formBox.addEventListener("submit", (e) => { e.preventDefault(); add(); });
-  ui.formBox.addEventListener("input", saveDraft);
+  ui.formBox.addEventListener("input", () => { justSaved = false; saveDraftSoon(); });
   ui.formBox.addEventListener("change", (e) => {
+    justSaved = false;
     if (e.target === stField.control) fillSelect(setField.control, settingOptions(ds, stField.control.value), setField.control.value);
     sField.el.hidden = elField.control.value !== AGAGCL_SW;
-    saveDraft();
+    saveDraftSoon();
   });
   sField.el.hidden = elField.control.value !== AGAGCL_SW;
 
@@ -228,10 +251,11 @@ export async function survey(root) {
     const file = importInput.files && importInput.files[0];
     if (!file || !db) return;
     importField.setError("");
-    toolsMsg.textContent = "Reading " + file.name + "…";
+    fill(toolsMsg, "Reading ", ...echo(file.name), "…");
     let text;
     try { text = await file.text(); } catch (err) { importField.setError("The file could not be read: " + err.message); toolsMsg.textContent = ""; return; }
-    const { records: recs, problems, repeated } = parseImport(text, bounds);
+    const csv = !text.trimStart().startsWith("{");
+    const { records: recs, problems, repeated } = csv ? parseCsvImport(text, bounds) : parseImport(text, bounds);
     if (!recs.length) {
       importField.setError("Nothing imported: " + (problems[0] || "the file holds no readings") + ".");
       toolsMsg.textContent = "";
@@ -246,6 +270,7 @@ export async function survey(root) {
         (problems.length ? "; " + problems.length + " not valid and left out (first: " + problems[0] + ")" : "") + ".";
       if (problems.length) importField.setError(problems.length + " record(s) left out: " + problems[0]);
       if (channel) channel.postMessage({ type: "changed" });
+      if (csv) await judgeUnjudged();
     } catch (err) {
       importField.setError("Nothing imported: the browser refused to store the readings (" + err.message + ").");
       toolsMsg.textContent = "";
@@ -283,12 +308,16 @@ export async function survey(root) {
   if (!records.length) fill(ui.result, h("p", { class: "cw-pending", text: "Each reading is judged here as it is saved." }));
   else fill(ui.result, h("p", { class: "cw-pending", text: "The latest reading's judgement is in the log below; add the next reading above." }));
 
-  // readings saved while the runtime could not start: judge them now
-  for (const r of records.filter((x) => x.judgement === null)) {
-    const out = await calculate("cp", requestOf(r));
-    if (!out.ok) break;
-    r.judgement = judgementOf(out.result);
-    try { await putRecord(db, r); } catch (err) { break; }
-    renderLog();
+  await judgeUnjudged();
+
+  // readings saved while the runtime could not start, or imported from a CSV: judge them now
+  async function judgeUnjudged() {
+    for (const r of records.filter((x) => x.judgement === null)) {
+      const out = await calculate("cp", requestOf(r));
+      if (!out.ok) break;
+      r.judgement = judgementOf(out.result);
+      try { await putRecord(db, r); } catch (err) { break; }
+      renderLog();
+    }
   }
 }

@@ -1,6 +1,7 @@
 // The survey log's records: storage in this browser's IndexedDB (a reading is shown as saved only
 // after its write has completed), the check every stored or imported record passes, and the
 // exports (CSV, JSON) and import. The bounds of the numbers are calc's (spec.json: bounds).
+import { echoText, problemText, readDecimal, visible } from "./numbers.mjs";
 import { h } from "./site.mjs";
 
 export const DB_NAME = "couplewise-survey";
@@ -8,7 +9,10 @@ export const STORE = "readings";
 const DB_VERSION = 1;
 export const FORMAT = "couplewise-survey-log";
 export const FORMAT_VERSION = 1;
-export const DRAFT_KEY = "couplewise-survey-draft";
+export const DRAFT_KEY = "couplewise-survey-draft"; // the draft's place before: localStorage, read once
+// The form's draft: a database of its own (the log's database keeps its version), one record.
+const DRAFT_DB = "couplewise-survey-draft";
+const DRAFT_STORE = "draft";
 const VERDICTS = ["protected", "not protected", "over-protected"];
 const UNITS = {
   reading_V: "V, against the electrode named in the record",
@@ -22,13 +26,13 @@ const UNITS = {
 // ---------------------------------------------------------------------------------------
 // Storage
 
-export function openDb() {
+export function openDb(name = DB_NAME, store = STORE) {
   return new Promise((resolve, reject) => {
     let req;
-    try { req = indexedDB.open(DB_NAME, DB_VERSION); } catch (err) { reject(err); return; }
+    try { req = indexedDB.open(name, DB_VERSION); } catch (err) { reject(err); return; }
     req.onupgradeneeded = () => {
       const db = req.result;
-      if (!db.objectStoreNames.contains(STORE)) db.createObjectStore(STORE, { keyPath: "id" });
+      if (!db.objectStoreNames.contains(store)) db.createObjectStore(store, { keyPath: "id" });
     };
     req.onsuccess = () => {
       const db = req.result;
@@ -41,15 +45,15 @@ export function openDb() {
 }
 
 // One transaction; resolves when it has completed (committed), rejects when it fails.
-function transact(db, mode, work) {
+function transact(db, mode, work, store = STORE) {
   return new Promise((resolve, reject) => {
     let tx;
-    try { tx = db.transaction(STORE, mode, { durability: "strict" }); } catch (err) { reject(err); return; }
+    try { tx = db.transaction(store, mode, { durability: "strict" }); } catch (err) { reject(err); return; }
     let value;
     tx.oncomplete = () => resolve(value);
     tx.onerror = () => reject(tx.error);
     tx.onabort = () => reject(tx.error || new Error("the write was aborted"));
-    try { work(tx.objectStore(STORE), (v) => { value = v; }); } catch (err) { tx.abort(); reject(err); }
+    try { work(tx.objectStore(store), (v) => { value = v; }); } catch (err) { tx.abort(); reject(err); }
   });
 }
 
@@ -58,6 +62,28 @@ export function allRecords(db) {
   return transact(db, "readonly", (st, done) => { const r = st.getAll(); r.onsuccess = () => done(r.result); });
 }
 export function clearRecords(db) { return transact(db, "readwrite", (st) => st.clear()); }
+
+// The draft of the form (field -> text as typed): written as it is typed (the caller waits a
+// moment after the last change), so a crash loses at most that moment; localStorage, where it
+// was kept before, writes to disk only seconds later. null when the browser stores nothing.
+export async function openDraft() {
+  try { return await openDb(DRAFT_DB, DRAFT_STORE); } catch (err) { return null; }
+}
+export async function readDraft(db) {
+  let draft = null;
+  if (db) {
+    try { draft = await transact(db, "readonly", (st, done) => { const r = st.get("form"); r.onsuccess = () => done(r.result); }, DRAFT_STORE); }
+    catch (err) { draft = null; }
+  }
+  try {
+    if (!draft) draft = JSON.parse(localStorage.getItem(DRAFT_KEY) || "null");
+    localStorage.removeItem(DRAFT_KEY);
+  } catch (err) { /* no storage: no draft */ }
+  return draft && typeof draft === "object" ? draft : {};
+}
+export function writeDraft(db, draft) {
+  return transact(db, "readwrite", (st) => st.put({ ...draft, id: "form" }), DRAFT_STORE);
+}
 
 // Add the records whose ids are not stored yet; resolves to {added, present}.
 export function mergeRecords(db, recs) {
@@ -128,7 +154,7 @@ export function recordProblem(r, bounds) {
   }
   const known = new Set(["id", "location", "time", "reading_V", "electrode", "temp_C", "structure", "setting", "reading_kind",
     "polarisation_mV", "salinity", "notes", "saved_at", "judgement"]);
-  for (const k of Object.keys(r)) if (!known.has(k)) return "unknown field " + k;
+  for (const k of Object.keys(r)) if (!known.has(k)) return "unknown field " + echoText(k);
   return null;
 }
 
@@ -198,11 +224,11 @@ export function exportCsv(recs, dataVersion) {
 // Parse an exported JSON log: {records, problems} (records valid, problems in words).
 export function parseImport(text, bounds) {
   let doc;
-  try { doc = JSON.parse(text); } catch (err) { return { records: [], problems: ["the file is not JSON: " + err.message] }; }
+  try { doc = JSON.parse(text); } catch (err) { return { records: [], problems: ["the file is not JSON: " + visible(err.message, 160).shown] }; }
   if (!doc || doc.format !== FORMAT || !Array.isArray(doc.records)) {
     return { records: [], problems: ["the file is not a Couplewise survey log (format " + FORMAT + ")"] };
   }
-  if (doc.format_version !== FORMAT_VERSION) return { records: [], problems: ["format version " + doc.format_version + " is not " + FORMAT_VERSION] };
+  if (doc.format_version !== FORMAT_VERSION) return { records: [], problems: ["format version " + echoText(JSON.stringify(doc.format_version) ?? "none") + " is not " + FORMAT_VERSION] };
   const records = [], problems = [], seen = new Set();
   let repeated = 0;
   doc.records.forEach((r, i) => {
@@ -210,6 +236,67 @@ export function parseImport(text, bounds) {
     if (p) problems.push("record " + (i + 1) + ": " + p);
     else if (seen.has(r.id)) repeated++; // the same reading twice in one file: kept once
     else { seen.add(r.id); records.push(r); }
+  });
+  return { records, problems, repeated };
+}
+
+// Rows of cells of a CSV text (RFC 4180 quoting; sep "," or ";").
+function csvRows(text, sep) {
+  const rows = [];
+  let row = [], cell = "", quoted = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (quoted) {
+      if (c !== '"') cell += c;
+      else if (text[i + 1] === '"') { cell += '"'; i++; } else quoted = false;
+    } else if (c === '"' && cell === "") quoted = true;
+    else if (c === sep) { row.push(cell); cell = ""; }
+    else if (c === "\n" || c === "\r") {
+      if (c === "\r" && text[i + 1] === "\n") i++;
+      row.push(cell); rows.push(row); row = []; cell = "";
+    } else cell += c;
+  }
+  if (cell !== "" || row.length) { row.push(cell); rows.push(row); }
+  return rows;
+}
+
+const CSV_COLUMNS = ["id", "time", "location", "reading_V", "electrode", "reading_kind", "temp_C", "structure", "setting",
+  "polarisation_mV", "salinity_g_per_kg", "notes", "saved_at"];
+
+// Parse a CSV log as exported here, maybe re-saved by a spreadsheet with ";" between the cells:
+// {records, problems, repeated} as parseImport. Its numbers are read by the one rule (numbers.mjs),
+// so "1,000" is refused, not read as 1; text cells lose the guard the export put before a leading
+// = + - @. A CSV holds no full judgement: its readings are judged again (judgement null).
+export function parseCsvImport(text, bounds) {
+  const body = text.replace(/^\ufeff/, "");
+  const headLine = body.split(/\r?\n/).find((ln) => ln.trim() !== "" && !ln.startsWith("#")) || "";
+  const sep = headLine.includes(";") && !headLine.includes(",") ? ";" : ",";
+  const rows = csvRows(body, sep).filter((r) => !(r.length === 1 && r[0].trim() === "") && !r[0].startsWith("#"));
+  const head = (rows.shift() || []).map((c) => c.trim());
+  const missing = CSV_COLUMNS.filter((c) => !head.includes(c));
+  if (missing.length) return { records: [], problems: ["the file is not a Couplewise survey log (a CSV export has the column " + missing[0] + ")"], repeated: 0 };
+  const records = [], problems = [], seen = new Set();
+  let repeated = 0;
+  rows.forEach((row, i) => {
+    const cell = (name) => row[head.indexOf(name)] ?? "";
+    const text = (name) => { const t = cell(name); return /^'[=+\-@\t\r]/.test(t) ? t.slice(1) : t; };
+    const num = (name, optional) => {
+      if (optional && cell(name).trim() === "") return null;
+      const r = readDecimal(cell(name));
+      if (r.value === undefined) throw new Error(name + ": " + (r.kind === "empty" ? "empty" : echoText(r.text) + " " + problemText(r)));
+      return r.value;
+    };
+    let rec;
+    try {
+      rec = { id: cell("id"), location: text("location"), time: cell("time"), reading_V: num("reading_V"), electrode: text("electrode"),
+        temp_C: num("temp_C"), structure: cell("structure"), setting: cell("setting"), reading_kind: cell("reading_kind"),
+        polarisation_mV: num("polarisation_mV", true), salinity: num("salinity_g_per_kg", true), notes: text("notes"),
+        saved_at: cell("saved_at"), judgement: null };
+    } catch (err) { problems.push("row " + (i + 1) + ": " + err.message); return; }
+    const p = recordProblem(rec, bounds);
+    if (p) problems.push("row " + (i + 1) + ": " + p);
+    else if (seen.has(rec.id)) repeated++;
+    else { seen.add(rec.id); records.push(rec); }
   });
   return { records, problems, repeated };
 }

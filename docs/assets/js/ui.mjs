@@ -2,6 +2,7 @@
 // holds a number or it does not: what is allowed is calc's to decide), the frame every
 // calculator sits in (runtime status, form, result, print view), the parts of a result
 // (derivation, warnings, sources, verdict badge) and the URL state. Text only ever as text.
+import { problemText, readDecimal, visible } from "./numbers.mjs";
 import { dataset, h, precomputedAnswers, runtimeStatus, siteRoot, spec } from "./site.mjs";
 
 export { h };
@@ -37,14 +38,33 @@ export function fieldText(x) {
   return x !== 0 && Math.abs(x) < 1e-3 ? x.toExponential() : String(x);
 }
 
-// Parse a number typed by a user; returns {value} or {error}. Only "is it a number" is checked
-// here: calc checks the range and its message is shown at the field (see runner.mjs).
+// Typed text in a message: in its own bidirectional isolate (<bdi>), so it cannot turn the words
+// around it; control and format characters shown as \uXXXX; cut after numbers.mjs' ECHO_MAX
+// characters, with its length. isolated(): as a name is shown; echo(): quoted, as text read.
+function echoNode(shown) {
+  const el = h("bdi", { class: "cw-echo", text: shown });
+  el.style.overflowWrap = "anywhere"; // a long run without spaces wraps inside a narrow field
+  return el;
+}
+
+export function isolated(raw) {
+  const { shown, cut, count } = visible(raw);
+  return [echoNode(shown), cut ? "… (" + count + " characters)" : null];
+}
+
+export function echo(raw) {
+  const { shown, cut, count } = visible(raw);
+  return ["“", echoNode(shown), cut ? "…” (" + count + " characters)" : "”"];
+}
+
+// Read a number typed by a user (the one rule: numbers.mjs); returns {value} or {error, kind}:
+// the error says what was read and what to write. Only "is it a number" is checked here: calc
+// checks the range and its message is shown at the field (see runner.mjs).
 export function readNumber(input, allowed) {
-  const raw = input.value.trim().replace(",", ".").replace("−", "-");
-  if (raw === "") return { error: "Enter a value: " + allowed + "." };
-  const v = Number(raw);
-  if (!Number.isFinite(v)) return { error: "“" + input.value + "” is not a number: " + allowed + "." };
-  return { value: v };
+  const r = readDecimal(input.value);
+  if (r.value !== undefined) return { value: r.value };
+  if (r.kind === "empty") return { error: "Enter a value: " + allowed + ".", kind: r.kind };
+  return { error: [...echo(r.text), " " + problemText(r) + ". Allowed: " + allowed + "."], kind: r.kind };
 }
 
 // Read field f into req[key]; shows the message at the field; returns true when it is not a number.
@@ -102,8 +122,9 @@ export function field(id, labelText, control, help) {
     el: h("div", { class: "cw-field" }, h("label", { for: id, text: labelText }), control,
       help ? h("div", { class: "cw-field-help", text: help }) : null, msg),
     control, msg,
-    setError(text) {
-      msg.textContent = text || "";
+    setError(text) { // a string, or parts (text and nodes, e.g. an echo) of one message
+      if (Array.isArray(text)) fill(msg, ...text);
+      else msg.textContent = text || "";
       control.classList.toggle("cw-invalid", !!text);
       control.setAttribute("aria-invalid", text ? "true" : "false");
     },
