@@ -126,6 +126,13 @@ def _matrix_page(pw_page, server):
     return out, cells
 
 
+
+def _ratios(d, unit, words):
+    """Pyodide against CPython for one row of figures (raw and in the page), added to d and printed."""
+    d["ratio_raw"] = ratio(d[f"pyodide_raw_{unit}"], d[f"cpython_{unit}"])
+    d["ratio_page"] = ratio(d[f"page_worker_{unit}"], d[f"cpython_{unit}"])
+    line(f"ratio Pyodide/CPython{words}: raw {fr(d['ratio_raw'])}, in the page {fr(d['ratio_page'])}")
+
 def run(server, site_dir, n_electrodes=1000):
     """Rounds alternate CPython, Pyodide raw and the page, so the three see the same machine load."""
     from playwright.sync_api import sync_playwright
@@ -166,9 +173,7 @@ def run(server, site_dir, n_electrodes=1000):
     line(f"Pyodide, raw (same code, main thread):          {fms(m['pyodide_raw_ms'])}")
     line(f"Pyodide, in the page (worker round trip):       {fms(m['page_worker_ms'])}")
     line(f"matrix calculator page, change to painted:      {fms(m['page_ui_ms'])} ({cells} cells)")
-    m["ratio_raw"] = ratio(m["pyodide_raw_ms"], m["cpython_ms"])
-    m["ratio_page"] = ratio(m["page_worker_ms"], m["cpython_ms"])
-    line(f"ratio Pyodide/CPython: raw {fr(m['ratio_raw'])}, in the page {fr(m['ratio_page'])}")
+    _ratios(m, "ms", "")
 
     heading(f"4. Throughput: electrode potentials per second, molalities through the Davies model "
             f"({n_electrodes} requests, best of 3 alternating rounds)")
@@ -176,7 +181,5 @@ def run(server, site_dir, n_electrodes=1000):
     line(f"CPython:                               {t['cpython_per_s']:.0f} /s")
     line(f"Pyodide, raw (same code, main thread): {t['pyodide_raw_per_s']:.0f} /s")
     line(f"Pyodide, in the page (worker, JSON):   {t['page_worker_per_s']:.0f} /s")
-    t["ratio_raw"] = ratio(t["pyodide_raw_per_s"], t["cpython_per_s"])
-    t["ratio_page"] = ratio(t["page_worker_per_s"], t["cpython_per_s"])
-    line(f"ratio Pyodide/CPython (rate): raw {fr(t['ratio_raw'])}, in the page {fr(t['ratio_page'])}")
+    _ratios(t, "per_s", " (rate)")
     return {"matrix": m, "throughput": t}
