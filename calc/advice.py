@@ -157,6 +157,61 @@ def verdict_text(judgement, rec_a, rec_b, basis, names):
 
 
 # --------------------------------------------------------------------------------------------
+# sacrificial by design
+
+
+#: families of the metals whose corrosion on steel is the purpose (common practice): zinc as an
+#: anode or a coating (galvanizing, zinc plate; a coating protects cut edges and scratches in the
+#: atmosphere too), magnesium and aluminium anode alloys as anodes in water or soil. The
+#: structural aluminium alloys (family "aluminium alloy") are not anodes by design: an aluminium
+#: hull or bracket on steel is a joint to keep apart, not a protection.
+SACRIFICIAL_FAMILIES = {"zinc": "any", "magnesium": "immersed", "aluminium anode alloy": "immersed"}
+#: the families those anodes and coatings protect
+PROTECTED_FAMILIES = ("steel", "cast iron")
+#: the rule in words, with :func:`sacrificial_by_design`
+SACRIFICIAL_RULE = (
+    "zinc (as an anode or a coating) on steel or cast iron, and magnesium or aluminium anode alloys on them in "
+    "water or soil, are sacrificial by design: the anode corrodes so that the steel does not (cathodic "
+    "protection). The verdict still holds for a part that must last: a structural zinc or magnesium part on steel "
+    "corrodes just as the verdict says.")
+
+
+def sacrificial_by_design(anode_rec, cathode_rec, basis):
+    """Whether a failing pair is a sacrificial anode or coating on steel: its attack is the purpose.
+
+    Args:
+        anode_rec: the material record of the anode [unitless]
+        cathode_rec: the material record of the cathode [unitless]
+        basis: the environment's :class:`calc.series.Basis` [unitless]
+
+    Returns:
+        ``{anode, cathode, text, source}`` with source ``common-practice``, or None
+
+    References:
+        Common practice of cathodic protection: zinc, magnesium and aluminium alloy anodes, and
+        zinc coatings, protect steel by corroding in its place (:data:`SACRIFICIAL_RULE`).
+
+    >>> from calc.dataset import current
+    >>> from calc.series import basis_of
+    >>> ds = current(); b = basis_of(ds.get("environments", "seawater-flowing"), ds)
+    >>> sacrificial_by_design(ds.get("materials", "zinc"), ds.get("materials", "mild steel"), b)["source"]
+    'common-practice'
+    >>> sacrificial_by_design(ds.get("materials", "aluminium-5083"), ds.get("materials", "mild steel"), b) is None
+    True
+    """
+    where = SACRIFICIAL_FAMILIES.get(anode_rec.get("family"))
+    if where is None or cathode_rec.get("family") not in PROTECTED_FAMILIES or (where == "immersed"
+                                                                                and not basis.immersed):
+        return None
+    anode, cathode = anode_rec.get("name", anode_rec["id"]), cathode_rec.get("name", cathode_rec["id"])
+    use = "an anode or a coating" if where == "any" else "an anode"
+    return {"anode": anode_rec["id"], "cathode": cathode_rec["id"], "source": "common-practice",
+            "text": f"sacrificial by design when {anode} is {use}: it corrodes so that {cathode} does not "
+                    "(cathodic protection); size it for the life wanted. For a part that must last, the verdict "
+                    "holds."}
+
+
+# --------------------------------------------------------------------------------------------
 # mitigations
 
 

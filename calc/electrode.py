@@ -8,7 +8,7 @@ reduction ``oxidised + n e− → reduced``; E°(T) from :mod:`calc.standard`, a
 import math
 from dataclasses import dataclass, replace
 
-from . import constants
+from . import constants, refelec
 from .conditions import KEYS as CONDITION_KEYS
 from .conditions import activities_for, note_unused, read_conditions
 from .dataset import current
@@ -23,6 +23,10 @@ LOG10_K_MAX = 300.0
 HALF_REACTION_ID = "a half-reaction id such as Zn2+/Zn"
 #: the fields of an ``electrode`` request, listed in this order in a message
 ELECTRODE_FIELDS = tuple(sorted(set(CONDITION_KEYS) | {"id"}))
+#: the reference electrodes field engineers read potentials against (ids of the dataset), in the
+#: order a result lists them: buried and fresh-water work (CSE), the laboratory (SCE, Ag/AgCl in
+#: saturated KCl) and seawater work (Ag/AgCl in seawater) (common practice)
+FIELD_SCALES = ("CSE", "SCE", "Ag/AgCl sat. KCl", "Ag/AgCl seawater")
 
 
 def nernst(E0_V, n, log10_Q, temp_C):
@@ -199,6 +203,92 @@ def electrode_potential(half_reaction_id, conditions=None):
     return replace(res, warnings=res.warnings + tuple(d.warnings)) if d.warnings else res
 
 
+def field_scales(E_V_SHE, temp_C, scales=FIELD_SCALES):
+    """A potential on the reference scales of field work, each electrode at the same temperature.
+
+    Each value is :func:`calc.refelec.convert` of the potential from SHE to that electrode (the
+    electrode's own temperature model from the dataset); one derivation step per electrode.
+
+    Args:
+        E_V_SHE: the potential [V vs SHE]
+        temp_C: temperature of the electrodes, 0 to 100 [°C]
+        scales: reference electrode ids [unitless]
+
+    Returns:
+        dict with ``potential_vs`` (electrode id -> potential [V vs that electrode]) and
+        ``detail`` (steps, warnings, sources)
+
+    References:
+        Reference-electrode scale conversion, :func:`calc.refelec.convert`; each electrode's
+        value and temperature model from the dataset (with its source id).
+
+    >>> r = field_scales(-0.534, 25.0)
+    >>> round(r["potential_vs"]["CSE"], 3), round(r["potential_vs"]["Ag/AgCl seawater"], 3)
+    (-0.85, -0.784)
+    """
+    d = Derivation()
+    out = {}
+    for rid in scales:
+        try:
+            r = refelec.convert(E_V_SHE, "SHE", rid, temp_C)
+        except InputError as exc:  # a potential no meter reads (beyond the readings calc converts)
+            d.warn("potential_V", f"{fmt(E_V_SHE)} V vs SHE is not expressed on the field scales: {exc.allowed}")
+            return {"potential_vs": {}, "detail": d.as_dict()}
+        out[r["to"]] = r["value_V"]
+        d.step(f"On the {r['to']} scale", f"E(vs {r['to']}) = E(vs SHE) − E({r['to']} vs SHE at t)",
+               f"E = {fmt(E_V_SHE)} V − ({fmt(r['E_to_V_SHE'])} V) at {fmt(r['temp_C'])} °C",
+               f"E = {fmt(r['value_V'])} V vs {r['to']}")
+        for w in r["warnings"]:
+            d.warn(w["field"], w["message"])
+        for src in r["sources"]:
+            d.cite(src)
+    return {"potential_vs": out, "detail": d.as_dict()}
+
+
+#: temperatures of the curve of E against temperature that an electrode result carries [°C]
+CURVE_TEMPS_C = (0.0, 10.0, 20.0, 25.0, 30.0, 40.0, 50.0, 60.0, 70.0, 80.0, 90.0, 100.0)
+#: log10 of the activities of the curve of E against the activity of a dissolved species [unitless]
+CURVE_LOG10_A = tuple(float(k) for k in range(-8, 1))
+
+
+def _potential_or_none(rec, conditions):
+    try:
+        return electrode_under(rec, read_conditions(conditions)).potential_V
+    except InputError:  # a point the conditions do not allow (e.g. an activity model beyond its range)
+        return None
+
+
+def electrode_curves(rec, conditions):
+    """The curves an electrode result carries for its charts: E against temperature, and E against
+    the activity of its first dissolved species given by activity (the other conditions as given).
+
+    Args:
+        rec: the half-reaction record [unitless]
+        conditions: the request's condition fields (as for :func:`electrode_potential`) [unitless]
+
+    Returns:
+        dict with ``temperature`` ({temp_C [°C], potential_V [V vs SHE]}) and ``activity``
+        ({species, log10_activity [unitless], potential_V [V vs SHE]}, or None); a point the
+        conditions do not allow is None
+
+    References:
+        :func:`electrode_under` at each point (Nernst with the full reaction quotient).
+
+    >>> c = electrode_curves(half_reaction("Cu2+/Cu"), {"activities": {"Cu2+": 0.01}})
+    >>> len(c["temperature"]["potential_V"]), c["activity"]["species"]
+    (12, 'Cu2+')
+    """
+    temps = [_potential_or_none(rec, {**conditions, "temp_C": t}) for t in CURVE_TEMPS_C]
+    ox, red, _ = sides(rec)
+    given = conditions.get("activities") if isinstance(conditions.get("activities"), dict) else {}
+    ion = next((x.name for x in ox + red if x.phase == "aq" and x.name not in ("H+", "OH-") and x.name in given), None)
+    curve = None
+    if ion is not None:
+        curve = {"species": ion, "log10_activity": list(CURVE_LOG10_A), "potential_V": [
+            _potential_or_none(rec, {**conditions, "activities": {**given, ion: 10.0 ** lg}}) for lg in CURVE_LOG10_A]}
+    return {"temperature": {"temp_C": list(CURVE_TEMPS_C), "potential_V": temps}, "activity": curve}
+
+
 def electrode_entry(req):
     """JSON entry point ``electrode``: the potential of one half-reaction at stated conditions.
 
@@ -211,6 +301,9 @@ def electrode_entry(req):
     Returns:
         dict with id, name, potential_V, standard_potential_V, standard_potential_25C_V,
         temp_C, reaction, n, Q, log10_Q, activities, hypothetical, steps, warnings, sources,
+        potential_vs (the potential on each of :data:`FIELD_SCALES`: electrode id -> [V vs that
+        electrode], at the request's temperature), potential_vs_detail (its steps, warnings and
+        sources, :func:`field_scales`), curves (:func:`electrode_curves`, for the page's charts),
         data_version
 
     References:
@@ -219,10 +312,16 @@ def electrode_entry(req):
     >>> r = electrode_entry({"id": "Cu2+/Cu", "activities": {"Cu2+": 0.01}})
     >>> round(r["potential_V"] - r["standard_potential_V"], 5)
     -0.05916
+    >>> sorted(r["potential_vs"]) == sorted(FIELD_SCALES)
+    True
     """
     read(req, "electrode", None, ELECTRODE_FIELDS)  # the fields listed in sorted order, as always
     read(req, "electrode", {"id": HALF_REACTION_ID}, ELECTRODE_FIELDS)
     res = electrode_potential(req["id"], {k: v for k, v in req.items() if k != "id"})
     out = res.to_dict()
+    scales = field_scales(res.potential_V, res.temp_C)
+    out["potential_vs"] = scales["potential_vs"]
+    out["potential_vs_detail"] = scales["detail"]
+    out["curves"] = electrode_curves(half_reaction(req["id"], "id"), {k: v for k, v in req.items() if k != "id"})
     out["data_version"] = current().version
     return out

@@ -55,7 +55,9 @@ def eph_lines(lines, temp_C=25.0, pH_values=EPH_PH):
 
     Returns:
         dict with temp_C, pH (the values), lines (id, name, n, standard_potential_V [V vs SHE],
-        pH_dependent, potential_V [V vs SHE], one per pH value), steps, warnings, sources
+        pH_dependent, potential_V [V vs SHE], one per pH value, and where the line means nothing
+        because a hydroxide or oxide is the stable solid: meaningful, meaningful_up_to_pH,
+        not_meaningful, :func:`solid_clipping`), steps, warnings, sources
 
     References:
         :func:`calc.standard.standard_potential`, :func:`calc.electrode.nernst`; activities per
@@ -94,7 +96,8 @@ def _lines_at(lines, t, pHs):
             d.cite(src)
         out.append({"id": rec["id"], "name": rec.get("name", rec["id"]), "n": sp.n,
                     "standard_potential_V": sp.standard_potential_V,
-                    "pH_dependent": depends, "potential_V": potentials})
+                    "pH_dependent": depends, "potential_V": potentials,
+                    **solid_clipping(rec, base, potentials, pHs)})
     outside = [p for p in pHs if not PH_USUAL[0] <= p <= PH_USUAL[1]]
     if outside:
         listed = ", ".join(fmt(p) for p in outside[:3]) + (", …" if len(outside) > 3 else "")
@@ -133,6 +136,124 @@ def _line_potentials(rec, base, E0_V, pHs, pre):
         potentials *= len(pHs)
     note_unused(base, used, dl, pre)
     return potentials, depends, dl
+
+
+# --------------------------------------------------------------------------------------------
+# where a metal-ion line means nothing: a hydroxide or oxide of the metal is the stable solid
+
+#: the species of water a hydroxide or oxide electrode holds besides its solid and its metal
+_WATER_SPECIES = ("H+", "OH-", "H2O")
+#: what the clipping leaves out
+HYDROXO_CAVEAT = ("dissolved hydroxo-complexes that some metals form at high pH (zincate, aluminate, ...) are not in "
+                  "the dataset, so the solid is taken to hold up to pH 14")
+
+
+def _ion_and_metal(rec):
+    """(ion, metal) of a line M^z+ + z e− → M (a dissolved cation and its own metal), else None."""
+    ox, red, _ = sides(rec)
+    if (len(ox) == 1 and len(red) == 1 and ox[0].phase == "aq" and ox[0].charge > 0
+            and red[0].phase in ("s", "l") and ox[0].formula == red[0].formula):
+        return ox[0], red[0]
+    return None
+
+
+def _solid_of(rec, metal):
+    """The hydroxide or oxide of ``metal`` that the half-reaction reduces to the metal, else None."""
+    ox, red, _ = sides(rec)
+    solids = [s for s in ox if s.phase == "s"]
+    if len(solids) != 1 or not {"O", metal.formula} <= set(solids[0].atoms()) or solids[0].formula == metal.formula:
+        return None
+    water = all(s.name in _WATER_SPECIES for s in ox if s is not solids[0])
+    to_metal = [s for s in red if s.name not in _WATER_SPECIES]
+    takes_pH = any(s.name in ("H+", "OH-") for s in ox + red)
+    if water and takes_pH and [(s.formula, s.phase) for s in to_metal] == [(metal.formula, metal.phase)]:
+        return solids[0]
+    return None
+
+
+def solid_boundary(ion_E_V, solid_E_V, pHs):
+    """The pH above which a hydroxide or oxide line lies below a flat metal-ion line.
+
+    Both lines belong to one metal: the ion line M^z+/M is flat in pH, the solid's line falls
+    with pH. Where the solid's line is the lower, the metal oxidises to the solid rather than to
+    the ion, so the ion line no longer bounds the metal (the domains of a Pourbaix diagram: the
+    metal is stable below the lowest of the lines of its oxidation products).
+
+    Args:
+        ion_E_V: potential of the ion line [V vs SHE]
+        solid_E_V: potentials of the solid's line at each pH value [V vs SHE]
+        pHs: the pH values, ascending [unitless]
+
+    Returns:
+        the pH of the crossing [unitless], or None when the solid's line does not fall with pH
+
+    References:
+        M. Pourbaix, Atlas of Electrochemical Equilibria in Aqueous Solutions, 2nd English ed.
+        (NACE, 1974), ch. 2 (from memory): the lines of the equilibria of a metal with each of its
+        oxidation products, and the lowest one bounds the domain of the metal.
+
+    >>> solid_boundary(-0.9097, [-0.4317 - 0.05916 * p for p in (0, 14)], [0, 14])
+    8.08
+    """
+    slope = (solid_E_V[-1] - solid_E_V[0]) / (pHs[-1] - pHs[0])
+    if not slope < 0:
+        return None
+    return round(pHs[0] + (ion_E_V - solid_E_V[0]) / slope, 2)
+
+
+def solid_clipping(rec, base, potentials, pHs):
+    """Where the line of a metal ion means nothing because a hydroxide or oxide is the stable solid.
+
+    For a line M^z+/M every hydroxide and oxide electrode of the same metal in the dataset is
+    computed at the same temperature (solids and water at unit activity, a(H+) = 10^−pH); above
+    the pH where the lowest of them crosses the ion line (:func:`solid_boundary`) the ion line is
+    not meaningful. Other lines are meaningful at every pH.
+
+    Args:
+        rec: the half-reaction record of the line [unitless]
+        base: the line's checked :class:`calc.conditions.Conditions` [unitless]
+        potentials: the line's potentials at each pH value [V vs SHE]
+        pHs: the pH values, ascending [unitless]
+
+    Returns:
+        dict with ``meaningful`` (a bool per pH value), ``meaningful_up_to_pH`` (the crossing, or
+        None) and ``not_meaningful`` (a list of {from_pH, solid, line, reason, caveats})
+
+    References:
+        :func:`solid_boundary`; the potentials of both lines by :func:`calc.electrode.nernst`.
+
+    >>> from calc.conditions import read_conditions
+    >>> r = solid_clipping(half_reaction("Zn2+/Zn"), read_conditions({"activities": {"Zn2+": 1e-5}}),
+    ...                    [-0.9097] * 15, list(range(15)))
+    >>> r["meaningful_up_to_pH"], r["not_meaningful"][0]["solid"], r["meaningful"][8:10]
+    (8.07, 'ZnO', [True, False])
+    """
+    found = _ion_and_metal(rec)
+    none = {"meaningful": [True] * len(pHs), "meaningful_up_to_pH": None, "not_meaningful": []}
+    if found is None or len(pHs) < 2 or pHs[-1] <= pHs[0]:
+        return none
+    ion, metal = found
+    best = None
+    for srec in current().records("half_reactions"):
+        solid = _solid_of(srec, metal)
+        if solid is None:
+            continue
+        sp = standard_potential_at(srec, base.temp_C, "lines")
+        solid_E, _, _ = _line_potentials(srec, base, sp.standard_potential_V, pHs, "")
+        x = solid_boundary(potentials[0], solid_E, pHs)
+        if x is not None and (best is None or x < best[0]):
+            best = (x, srec, solid, sp)
+    if best is None or best[0] >= pHs[-1]:
+        return none
+    x, srec, solid, sp = best
+    a_ion = activities_for([ion], base, Derivation())[ion.key].activity
+    reason = (f"above pH {fmt(x, 3)} {metal.name} oxidises to {solid.name} rather than to {ion.name} at "
+              f"a({ion.name}) = {fmt(a_ion, 3)}: the {srec['id']} line lies below the {rec['id']} line there, so "
+              f"{solid.name} is the stable solid and the {rec['id']} line is not drawn")
+    caveats = [HYDROXO_CAVEAT] + [w["message"] for w in sp.warnings]
+    return {"meaningful": [p <= x for p in pHs], "meaningful_up_to_pH": x,
+            "not_meaningful": [{"from_pH": x, "solid": solid.name, "line": srec["id"], "reason": reason,
+                                "caveats": caveats}]}
 
 
 def eph_entry(req):

@@ -10,7 +10,7 @@ import csv
 import io
 from dataclasses import dataclass
 
-from .advice import CAUTIONS, basis_warnings, volts
+from .advice import CAUTIONS, SACRIFICIAL_RULE, basis_warnings, sacrificial_by_design, volts
 from .dataset import current
 from .derivation import Derivation
 from .errors import InputError
@@ -19,6 +19,19 @@ from .series import EPS_V, TIER_MEANING, TIER_RANK, TIERS, basis_of, material_on
 
 #: the columns of each entry of a matrix result's ``pairs``
 PAIR_FIELDS = ("a", "b", "delta_E_V", "verdict", "anode")
+#: the columns of each entry of a matrix result's ``details`` (one per pair, in the order of ``pairs``)
+DETAIL_FIELDS = ("best_V", "worst_V", "why", "other_state_V", "by_design")
+#: why a pair got its verdict: code -> meaning (the codes of a result's ``details``)
+WHY = {
+    "over": "the nominal difference exceeds the allowable",
+    "range": "the nominal difference is within the allowable, but the published ranges of the two allow a "
+             "difference beyond it",
+    "state": "the parts as named are within the allowable, but with another passive/active state of a part (a "
+             "stainless steel turning active in a crevice, for instance) the pair no longer passes cleanly: its "
+             "difference, or the spread of its published ranges, exceeds the allowable",
+    "negligible": "the nominal difference is within the band treated as negligible",
+    "within": "the difference is within the allowable, the published ranges included",
+}
 #: most materials in one table
 MATERIALS_MAX = 500
 
@@ -31,7 +44,7 @@ class MatrixResult:
 
     def to_dict(self):
         """Plain data for JSON (the pairs are copied row by row: they are flat already)."""
-        return {k: [list(p) for p in v] if k == "pairs" else copy.deepcopy(v) for k, v in self.data}
+        return {k: [list(p) for p in v] if k in ("pairs", "details") else copy.deepcopy(v) for k, v in self.data}
 
 
 def _materials(ds, materials, basis):
@@ -59,28 +72,61 @@ def _spread(pa, pb):
 
 
 def _pairs(vals, basis):
-    """Every pair (i < j) as (i, j, ΔE, verdict, anode index), and the count of each verdict."""
+    """Every pair (i < j) as (i, j, ΔE, verdict, anode index), the count of each verdict, and the
+    detail of each pair (best and worst ΔE of the ranges, why the verdict, ΔE of the worst other state)."""
     allow, neg = basis.allowable_V, basis.negligible_V
     guarded = TIER_RANK["guarded"]
 
-    def other_state_fails(vi, vj):
-        return any(TIER_RANK[tier_for(*_spread(pa, pb), allow, neg)] >= guarded
-                   for si, pa in enumerate(vi) for sj, pb in enumerate(vj) if si or sj)
+    def worst_other_state(vi, vj):
+        """ΔE of the worst combination of other passive/active states that does not pass cleanly (guarded or
+        unsuited), or None."""
+        worst = None
+        for si, pa in enumerate(vi):
+            for sj, pb in enumerate(vj):
+                if si or sj:
+                    d, w = _spread(pa, pb)
+                    if TIER_RANK[tier_for(d, w, allow, neg)] >= guarded and (worst is None or d > worst):
+                        worst = d
+        return worst
 
     counts = dict.fromkeys(TIERS, 0)
-    pairs = []
+    pairs, details = [], []
     for i, vi in enumerate(vals):
         for j in range(i + 1, len(vals)):
             vj = vals[j]
             d, worst = _spread(vi[0], vj[0])
             t = tier_for(d, worst, allow, neg)
-            if TIER_RANK[t] < guarded and (len(vi) > 1 or len(vj) > 1) and other_state_fails(vi, vj):
+            other = worst_other_state(vi, vj) if len(vi) > 1 or len(vj) > 1 else None
+            if TIER_RANK[t] < guarded and other is not None:
                 t = tier_for(d, worst, allow, neg, state_fail=True)
+            why = _why(t, d, worst, basis)
             d = round(d, 6)
             anode = None if d <= EPS_V else (i if vi[0][0] < vj[0][0] else j)
             counts[t] += 1
             pairs.append((i, j, round(d, 4), t, anode))
-    return pairs, counts
+            best = max(0.0, max(vi[0][1], vj[0][1]) - min(vi[0][2], vj[0][2]))
+            details.append([round(best, 4), round(worst, 4), why, None if other is None else round(other, 4)])
+    return pairs, counts, details
+
+
+def _why(tier, d, worst, basis):
+    """The code of :data:`WHY` that says why a pair got its tier."""
+    if tier == "unsuited":
+        return "over"
+    if tier == "guarded":
+        return "range" if worst > basis.allowable_V + EPS_V else "state"
+    return "negligible" if tier == "matched" else "within"
+
+
+def _by_design(recs, pairs, basis):
+    """Per pair, whether a failing pair is a sacrificial anode or coating on steel (:func:`calc.advice.sacrificial_by_design`)."""
+    out = []
+    for i, j, _, t, anode in pairs:
+        if anode is None or TIER_RANK[t] < TIER_RANK["guarded"]:
+            out.append(False)
+            continue
+        out.append(sacrificial_by_design(recs[anode], recs[j if anode == i else i], basis) is not None)
+    return out
 
 
 def _steps(basis, n, counts):
@@ -109,8 +155,15 @@ def galvanic_matrix(env, materials=None, with_csv=False):
         materials: material ids, aliases or UNS numbers; None takes every material with data for the basis [unitless]
         with_csv: also write the pairs as CSV text (``csv``, material ids instead of indices) [unitless]
 
+    Each pair also has its ``details`` (:data:`DETAIL_FIELDS`, in the order of ``pairs``): the
+    best and worst differences of the published ranges, the code of :data:`WHY` that says why it
+    got its verdict, the difference of the worst failing other passive/active state (or None),
+    and whether a failing pair is a sacrificial anode or coating on steel by design
+    (:func:`calc.advice.sacrificial_by_design`; the verdict itself is unchanged).
+
     Returns:
-        a :class:`MatrixResult` (pairs with delta_E_V in [V], verdict, anode; counts; csv text when asked)
+        a :class:`MatrixResult` (pairs with delta_E_V in [V], verdict, anode; details with best_V and
+        worst_V in [V]; counts; csv text when asked)
 
     References:
         as :func:`calc.joint.judge_joint` (ASTM G82-98 (R2014); legacy anodic-index table).
@@ -121,6 +174,8 @@ def galvanic_matrix(env, materials=None, with_csv=False):
     ('zinc', 'unsuited')
     >>> "csv" in m, galvanic_matrix("seawater-flowing", ["zinc", "mild steel"], True).to_dict()["csv"].splitlines()[2]
     (False, 'zinc,carbon-steel,zinc,0.3450,unsuited')
+    >>> dict(zip(m["detail_fields"], m["details"][0]))["by_design"]
+    True
     """
     ds = current()
     envrec = ds.get("environments", env, field="env")
@@ -129,7 +184,9 @@ def galvanic_matrix(env, materials=None, with_csv=False):
     ids = [r["id"] for r in recs]
     # per material: (nominal, low, high) of each state, own state first
     vals = [[(p.nominal, p.low, p.high) for _, p in states(ds, r, basis)] for r in recs]
-    pairs, counts = _pairs(vals, basis)
+    pairs, counts, details = _pairs(vals, basis)
+    for row, flag in zip(details, _by_design(recs, pairs, basis)):
+        row.append(flag)
     sources = list(dict.fromkeys(
         [s for r in recs for s in (r.get(basis.source_field),) if s] +
         [s for s in (basis.allowable_source, envrec.get("negligible_source")) if s]))
@@ -138,6 +195,8 @@ def galvanic_matrix(env, materials=None, with_csv=False):
         ("negligible_V", basis.negligible_V),
         ("materials", ids), ("names", [r.get("name", r["id"]) for r in recs]),
         ("pair_fields", list(PAIR_FIELDS)), ("pairs", pairs), ("counts", counts),
+        ("detail_fields", list(DETAIL_FIELDS)), ("details", details), ("why", dict(WHY)),
+        ("by_design_rule", {"text": SACRIFICIAL_RULE, "source": "common-practice"}),
     ]
     if with_csv:
         data.append(("csv", _pairs_csv(basis, ds, ids, pairs)))
@@ -170,8 +229,9 @@ def matrix_entry(request):
 
     Returns:
         dict: env, basis, allowable_V, negligible_V, materials, names, pair_fields, pairs (indices a, b,
-        delta_E_V [V], verdict, anode index), counts, csv (only when asked), tiers, cautions, steps,
-        warnings, sources, data_version
+        delta_E_V [V], verdict, anode index), counts, detail_fields, details (per pair: best_V [V],
+        worst_V [V], why, other_state_V [V], by_design), why (code -> meaning), by_design_rule,
+        csv (only when asked), tiers, cautions, steps, warnings, sources, data_version
 
     References:
         as :func:`calc.joint.judge_joint`.

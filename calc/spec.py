@@ -21,9 +21,9 @@ OPENINGS = {
     "convert": {"from": "Ag/AgCl seawater", "to": "CSE", "value_V": -0.93, "temp_C": 18.0},
     "activity": {"species": "Zn2+", "model": "extended", "ionic_strength": 0.02, "temp_C": 40.0},
     "joint": {"a": "aluminium-5083", "b": "stainless-316-passive", "env": "seawater-quiescent", "area_ratio": 0.2},
-    "matrix": {"env": "seawater-quiescent",
+    "matrix": {"env": "seawater-quiescent",  # materials in the dataset's order, as the page's picker keeps them
                "materials": ["titanium", "stainless-316-passive", "stainless-316-active", "nickel-aluminium-bronze",
-                             "cuni-90-10", "copper", "cast-iron", "carbon-steel", "aluminium-5083", "zinc"]},
+                             "cuni-90-10", "copper", "carbon-steel", "cast-iron", "aluminium-5083", "zinc"]},
 }
 
 #: calculator name -> values shown in fields that its opening request does not send

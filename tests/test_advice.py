@@ -96,3 +96,24 @@ def test_cautions_defer_to_standards_and_professionals():
     for word in ("crevices", "flow", "temperature", "biofilm", "coatings", "geometry", "potable", "pressure"):
         assert word in text
 
+
+
+# ---------------------------------------------------------------- sacrificial by design
+
+@pytest.mark.parametrize("anode,cathode,env,by_design", [
+    ("zinc", "carbon steel", SEA, True),                     # a zinc anode on a steel hull
+    ("galvanized steel", "cast iron", "marine-atmosphere", True),  # a zinc coating protects cut edges in air
+    ("magnesium", "carbon steel", SEA, True),                # a magnesium anode in water
+    ("magnesium", "carbon steel", "marine-atmosphere", False),  # no anode works in air
+    ("aluminium-5083", "carbon steel", SEA, False),          # a structural aluminium alloy is no anode
+    ("zinc", "copper", SEA, False),                          # zinc on copper protects no steel
+])
+def test_sacrificial_anodes_and_coatings_on_steel(ds, anode, cathode, env, by_design):
+    # Common practice of cathodic protection: zinc, magnesium and aluminium anode alloys, and zinc
+    # coatings, protect steel by corroding in its place
+    basis = S.basis_of(ds.get("environments", env), ds)
+    out = A.sacrificial_by_design(ds.get("materials", anode), ds.get("materials", cathode), basis)
+    assert (out is not None) == by_design
+    if by_design:
+        assert out["source"] == "common-practice" and "sacrificial by design" in out["text"]
+        assert out["anode"] == ds.get("materials", anode)["id"]

@@ -253,3 +253,43 @@ def test_a_couple_checks_its_temperature_once(shipped, monkeypatch):
         monkeypatch.setattr(module, "check_temperature", counted)
     couple_entry({"a": "Zn2+/Zn", "b": "O2/H2O", "temp_C": 40, "pH": 7, "b_conditions": {"pressures": {"O2": 0.21}}})
     assert calls == ["temp_C"]
+
+
+# ---------------------------------------------------------------- E–pH lines that stop at a solid
+
+def test_the_metal_ion_line_stops_where_the_oxide_is_the_stable_solid(shipped):
+    # Zn2+/Zn at a(Zn2+) = 1e-5, 25 °C: E = −0.7618 + (0.059159/2)·(−5) V (OpenStax Chemistry 2e,
+    # Appendix L); ZnO/Zn (ZnO + H2O + 2e− → Zn + 2 OH−, CRC −1.260 V, recalled) is
+    # E = −1.260 − 0.059159·(pH − pKw), pKw 13.995 at 25 °C (Bandura & Lvov 2006). The two cross at
+    # pH = pKw − (E_ion + 1.260)/0.059159 = 8.07; above it ZnO, not Zn2+, is what zinc oxidises to.
+    slope = nernst_slope_V(25)
+    e_ion = -0.7618 + slope / 2 * -5
+    expected = 13.995 - (e_ion + 1.260) / slope
+    r = couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "activities": {"Zn2+": 1e-5, "Cu2+": 1}})
+    lines = {ln["id"]: ln for ln in r["eph"]["lines"]}
+    zn = lines["Zn2+/Zn"]
+    assert zn["meaningful_up_to_pH"] == pytest.approx(expected, abs=0.02)
+    assert zn["meaningful"] == [p <= zn["meaningful_up_to_pH"] for p in r["eph"]["pH"]]
+    stop = zn["not_meaningful"][0]
+    assert (stop["solid"], stop["line"]) == ("ZnO", "ZnO/Zn") and "ZnO is the stable solid" in stop["reason"]
+    assert any("hydroxo-complexes" in c for c in stop["caveats"])
+    for rid in ("H+/H2", "O2/H2O"):  # the water lines hold at every pH
+        assert lines[rid]["meaningful"] == [True] * 15 and lines[rid]["not_meaningful"] == []
+    # the potentials themselves are those of the line as before: only the marks are added
+    assert zn["potential_V"] == [pytest.approx(e_ion, abs=2e-4)] * 15
+
+
+def test_the_lower_activity_the_later_the_solid_takes_over(shipped):
+    # A more dilute ion line lies lower, so the falling oxide line crosses it at a higher pH: two
+    # decades of a(Zn2+) move the crossing by one pH unit (n = 2, the oxide line's slope is one Nernst slope)
+    at = {a: couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "activities": {"Zn2+": a}})["eph"]["lines"][2]
+          for a in (1e-4, 1e-6)}
+    assert at[1e-6]["meaningful_up_to_pH"] - at[1e-4]["meaningful_up_to_pH"] == pytest.approx(1.0, abs=0.02)
+
+
+def test_the_eph_entry_marks_its_lines_the_same_way(shipped):
+    r = eph_entry({"lines": [{"id": "Zn2+/Zn", "activities": {"Zn2+": 1e-5}}, {"id": "Cr2O7^2-/Cr3+"}]})
+    zn, cr = r["lines"]
+    c = couple_entry({"a": "Zn2+/Zn", "b": "Cu2+/Cu", "activities": {"Zn2+": 1e-5}})["eph"]["lines"][2]
+    assert zn["meaningful_up_to_pH"] == c["meaningful_up_to_pH"] and zn["meaningful"] == c["meaningful"]
+    assert cr["meaningful_up_to_pH"] is None  # not a metal-ion line: nothing to clip

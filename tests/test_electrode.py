@@ -209,3 +209,61 @@ def test_an_unknown_field_lists_the_fields_in_sorted_order(shipped):
     with pytest.raises(InputError) as exc:
         electrode_entry({"temp_C": 30})
     assert str(exc.value) == "id = None: expected a half-reaction id such as Zn2+/Zn"
+
+
+# ---------------------------------------------------------------- the field scales (potential_vs)
+
+def test_potential_on_the_field_scales_at_25_C(shipped):
+    # The hydrogen electrode at pH 0 and p(H2) = 1 bar is 0 V vs SHE, so against each reference it is
+    # minus that electrode's potential: SCE 0.2412 V (Sawyer, Sobkowiak & Roberts, Electrochemistry for
+    # Chemists, 2nd ed. 1995), CSE 0.316 V (Szabó & Bakos, Int. J. Corros. 2010, 756950, Table 2),
+    # Ag/AgCl sat. KCl 0.197 V (Sawyer et al. 1995) and Ag/AgCl seawater 0.25 V (EN 12473, recalled).
+    r = electrode_entry({"id": "H+/H2", "pH": 0, "pressures": {"H2": 1 / 1.01325}})
+    assert r["potential_V"] == pytest.approx(0.0, abs=1e-12)
+    assert list(r["potential_vs"]) == ["CSE", "SCE", "Ag/AgCl sat. KCl", "Ag/AgCl seawater"]
+    expected = {"CSE": -0.316, "SCE": -0.2412, "Ag/AgCl sat. KCl": -0.197, "Ag/AgCl seawater": -0.25}
+    for rid, v in expected.items():
+        assert r["potential_vs"][rid] == pytest.approx(v, abs=1e-4), rid
+    assert len(r["potential_vs_detail"]["steps"]) == 4 and r["potential_vs_detail"]["warnings"] == []
+
+
+def test_potential_on_the_field_scales_follows_the_request_temperature(shipped):
+    # Each electrode at the request's temperature, by its published model (evaluated in tests/oracles.py
+    # from data/reference_electrodes.yaml, not through calc): E(vs X) = E(vs SHE) − E(X vs SHE at t)
+    from oracles import published_model_V, stored_reference_electrodes
+
+    refs = stored_reference_electrodes()
+    r = electrode_entry({"id": "Cu2+/Cu", "temp_C": 35, "activities": {"Cu2+": 0.01}})
+    for rid, v in r["potential_vs"].items():
+        assert v == pytest.approx(r["potential_V"] - published_model_V(refs[rid], 35.0), abs=1e-12), rid
+    # the CSE warms by 0.9 mV/K (makers' figure, common practice): 9 mV more positive at 35 °C
+    assert r["potential_V"] - r["potential_vs"]["CSE"] == pytest.approx(0.316 + 0.009, abs=1e-9)
+    hot = electrode_entry({"id": "Cu2+/Cu", "temp_C": 75, "activities": {"Cu2+": 0.01}})
+    warned = " ".join(w["message"] for w in hot["potential_vs_detail"]["warnings"])
+    assert "SCE temperature model" in warned and "extrapolated" in warned
+
+
+def test_a_potential_no_meter_reads_is_not_put_on_the_field_scales(shipped):
+    # a(Zn2+) = 1e-300 puts Zn2+/Zn near −9.6 V vs SHE: within calc's range of potentials, but the
+    # conversion of readings takes −10 to +10 V only; beyond that nothing is converted, with a warning
+    r = electrode_entry({"id": "Zn2+/Zn", "temp_C": 75, "activities": {"Zn2+": 1e-300}})
+    assert r["potential_V"] < -10
+    assert r["potential_vs"] == {} and "not expressed on the field scales" in r["potential_vs_detail"]["warnings"][0]["message"]
+
+
+def test_the_curves_of_the_page_are_the_potential_at_each_point(shipped):
+    # One request carries the page's two curves; each point is the electrode at that temperature or activity
+    req = {"id": "Zn2+/Zn", "temp_C": 30, "activities": {"Zn2+": 2e-6}}
+    r = electrode_entry(req)
+    t = r["curves"]["temperature"]
+    assert t["temp_C"][0] == 0 and t["temp_C"][-1] == 100 and len(t["temp_C"]) == len(t["potential_V"])
+    k = t["temp_C"].index(30.0)
+    assert t["potential_V"][k] == pytest.approx(r["potential_V"], abs=1e-12)
+    a = r["curves"]["activity"]
+    assert a["species"] == "Zn2+" and a["log10_activity"] == [float(x) for x in range(-8, 1)]
+    for lg, e in zip(a["log10_activity"], a["potential_V"]):
+        one = electrode_entry({**req, "activities": {"Zn2+": 10.0 ** lg}})["potential_V"]
+        assert e == pytest.approx(one, abs=1e-12)
+    # ten-fold activity: one Nernst slope over n = 2 at 30 °C (CODATA 2018 constants, tests/oracles.py)
+    assert a["potential_V"][-1] - a["potential_V"][-2] == pytest.approx(nernst_slope_V(30) / 2, rel=1e-9)
+    assert electrode_entry({"id": "H+/H2", "pH": 3})["curves"]["activity"] is None  # no dissolved species given

@@ -118,3 +118,44 @@ def test_matrix_any_input_gives_a_result_or_a_clear_error(env, mats):
     else:
         assert out["error"]["field"] and out["error"]["message"]
 
+
+
+# ---------------------------------------------------------------- why each verdict; sacrificial by design
+
+def test_matrix_details_say_why_each_verdict(ds):
+    m = M.matrix_entry({"env": "seawater-quiescent"})
+    assert m["detail_fields"] == ["best_V", "worst_V", "why", "other_state_V", "by_design"]
+    assert len(m["details"]) == len(m["pairs"]) and set(m["why"]) == {"over", "range", "state", "negligible", "within"}
+    allow = m["allowable_V"]
+    for (_, _, delta, verdict, _), (best, worst, why, other, _) in zip(m["pairs"], m["details"]):
+        assert best - 1e-9 <= delta <= worst + 1e-9
+        assert why == {"unsuited": "over", "matched": "negligible", "compatible": "within"}.get(verdict, why)
+        if verdict == "guarded":
+            assert (why == "range") == (worst > allow + 1e-9)
+            assert why == "range" or other is not None  # another state is guarded or unsuited
+    assert {d[2] for d in m["details"]} >= {"over", "range", "state", "within"}
+
+
+def test_matrix_details_agree_with_the_joint(ds):
+    # the best and worst case of each pair, and the state reason, as a joint of the two has them
+    mats = ["titanium", "stainless-316-passive", "nickel-aluminium-bronze", "cuni-90-10", "copper", "zinc"]
+    m = M.matrix_entry({"env": SEA, "materials": mats})
+    ids = m["materials"]
+    for (i, j, _, verdict, _), (best, worst, why, other, _) in zip(m["pairs"], m["details"]):
+        r = J.joint_entry({"a": ids[i], "b": ids[j], "env": SEA})
+        assert [best, worst] == pytest.approx(r["delta_E_range_V"], abs=1e-4)
+        assert r["verdict"] == verdict
+        if why == "state":
+            assert other == pytest.approx(r["worst_state"]["delta_E_V"], abs=1e-4)
+
+
+def test_matrix_flags_sacrificial_anodes_on_steel_and_keeps_their_verdict(ds):
+    # zinc on mild steel in seawater: 0.345 V, unsuited as a joint (ASTM G82 Fig. 1), and a zinc anode
+    # by design (common practice); zinc on copper is no protection of steel
+    m = M.matrix_entry({"env": SEA, "materials": ["copper", "carbon steel", "zinc"]})
+    ids = m["materials"]
+    flags = {frozenset((ids[p[0]], ids[p[1]])): (p[3], d[4]) for p, d in zip(m["pairs"], m["details"])}
+    assert flags[frozenset(("carbon-steel", "zinc"))] == ("unsuited", True)
+    assert flags[frozenset(("copper", "zinc"))] == ("unsuited", False)
+    assert flags[frozenset(("copper", "carbon-steel"))][1] is False
+    assert m["by_design_rule"]["source"] == "common-practice"

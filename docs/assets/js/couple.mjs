@@ -7,6 +7,18 @@ import {
   signed, sourcesLine, speciesField, speciesOf, warningsList, writeUrl,
 } from "./ui.mjs";
 
+// The end of a clipped line: the point at the pH where it stops (between two of the chart's pH
+// values, read off the line), and the solid that takes over there.
+function clippedEnd(pHs, ln) {
+  const x = ln.meaningful_up_to_pH;
+  if (x === null || x === undefined || x < pHs[0] || x > pHs[pHs.length - 1]) return null;
+  let k = 0;
+  while (k < pHs.length - 2 && pHs[k + 1] < x) k++;
+  const f = (x - pHs[k]) / (pHs[k + 1] - pHs[k]);
+  const y = ln.potential_V[k] + f * (ln.potential_V[k + 1] - ln.potential_V[k]);
+  return { at: [x, y], label: (ln.not_meaningful[0] || {}).solid || "" };
+}
+
 export async function couple(root) {
   const { ui, ds, sp, start, params } = await begin(root, "Couple", "couple");
   const reactions = [...ds.half_reactions].sort((x, y) => x.E0_V - y.E0_V);
@@ -20,17 +32,36 @@ export async function couple(root) {
   const condBox = h("fieldset", { class: "cw-conditions" });
   ui.formBox.append(h("div", { class: "cw-row" }, aField.el, bField.el), h("div", { class: "cw-row" }, tField.el, phField.el), condBox);
   let speciesFields = new Map();
+  let owners = new Map(); // species -> ids of the half-reactions of the pair that hold it
+  const openingPair = (a, b) => a === start.a && b === start.b;
 
-  function rebuildConditions() {
-    const { seen, needsPH } = speciesOf([byId.get(aField.control.value), byId.get(bField.control.value)]);
-    const old = speciesFields;
+  // The species fields of the pair. On opening they take the URL's values (or the opening
+  // request's, for the opening pair); when the pair changes, a species keeps its value only while
+  // a half-reaction that holds it stays in the pair: the others start at the standard value, 1.
+  function rebuildConditions(first) {
+    const recs = [byId.get(aField.control.value), byId.get(bField.control.value)];
+    const { seen, needsPH } = speciesOf(recs);
+    const held = new Map();
+    for (const rec of recs) {
+      for (const x of (rec && rec.species) || []) {
+        if (!held.has(x.name)) held.set(x.name, new Set());
+        held.get(x.name).add(rec.id);
+      }
+    }
+    const old = speciesFields, oldOwners = owners;
     speciesFields = new Map();
-    condBox.replaceChildren(h("legend", { text: seen.size ? "Activities and pressures" : "No dissolved or gaseous species other than H+/OH-" }));
+    owners = held;
+    let reset = false;
+    const legend = h("legend", { text: seen.size ? "Activities and pressures" : "No dissolved or gaseous species other than H+/OH-" });
+    condBox.replaceChildren(legend);
     for (const [name, phase] of seen) {
       const gas = phase === "g";
       const prev = old.get(name);
-      const opening = (gas ? start.pressures : start.activities) || {};
-      const val = prev ? prev.control.value : params.get((gas ? "p." : "a.") + name) ?? fieldText(opening[name] ?? 1);
+      const opening = (openingPair(aField.control.value, bField.control.value) ? (gas ? start.pressures : start.activities) : null) || {};
+      let val;
+      if (first) val = params.get((gas ? "p." : "a.") + name) ?? fieldText(opening[name] ?? 1);
+      else if (prev && [...(oldOwners.get(name) || [])].some((id) => held.get(name).has(id))) val = prev.control.value;
+      else { val = fieldText(1); reset = true; }
       const label = gas ? "Partial pressure of " + name + " (atm)" : "Activity of " + name;
       const f = field("cw-sp-" + name.replace(/[^A-Za-z0-9]/g, "_"), label, numberInput(val),
         gas ? hint(sp, "pressure_atm", "1 atm is standard") : hint(sp, "activity"));
@@ -38,6 +69,7 @@ export async function couple(root) {
       speciesFields.set(name, f);
       condBox.append(f.el);
     }
+    if (reset) legend.textContent += " (the new half-reaction's species start at the standard value, 1)";
     phField.el.hidden = !needsPH;
   }
 
@@ -78,15 +110,23 @@ export async function couple(root) {
       ephBox.replaceChildren(h("p", { class: "cw-pending", text: "E–pH chart not drawn: " + eph.error.message }));
       return;
     }
-    const series = eph.lines.map((ln, i) => ({ name: ln.id, dash: DASHES[i],
-      points: eph.pH.map((pH, k) => [pH, ln.potential_V[k]]) }));
+    // A line stops where calc says it means nothing (a hydroxide or oxide is the stable solid there).
+    const series = eph.lines.map((ln, i) => ({ name: ln.id, dash: DASHES[i], end: clippedEnd(eph.pH, ln),
+      points: eph.pH.map((pH, k) => [pH, ln.potential_V[k]]).filter((_, k) => !ln.meaningful || ln.meaningful[k]) }));
+    for (const se of series) if (se.end) se.points.push(se.end.at);
     const anode = r.anode_electrode || {};
     const phNow = req.pH !== undefined ? req.pH : 7;
-    ephBox.replaceChildren(lineChart({
+    const stops = eph.lines.flatMap((ln) => ln.not_meaningful || []);
+    const reasons = stops.map((nm) => nm.reason.charAt(0).toUpperCase() + nm.reason.slice(1) + ".");
+    const caveats = [...new Set(stops.flatMap((nm) => nm.caveats || []))];
+    ephBox.replaceChildren(h("figure", { class: "cw-eph" }, lineChart({
       title: "E–pH: water stability lines and the two couples", xLabel: "pH", yLabel: "E (V vs SHE)",
       desc: "Between the dotted H+/H2 and O2/H2O lines water is stable; a couple whose line lies below the H+/H2 line can reduce water to hydrogen at that pH.",
-      series, legendRight: true, marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
-    }));
+      series, legendRight: true, xRange: [eph.pH[0], eph.pH[eph.pH.length - 1]],
+      marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
+    }), reasons.length ? h("figcaption", { class: "cw-eph-caption" }, h("strong", { text: "Where a line stops (the bar at its end): " }),
+      ...reasons.map((t) => h("span", { class: "cw-eph-reason", text: t + " " })),
+      caveats.length ? h("span", { class: "cw-eph-caveat", text: "Note: " + caveats.join("; ") + "." }) : null) : null));
     performance.mark("cw-chart-painted");
   }
 
@@ -116,7 +156,7 @@ export async function couple(root) {
   aField.control.addEventListener("change", () => changed(true));
   bField.control.addEventListener("change", () => changed(true));
   ui.formBox.addEventListener("input", (e) => { if (e.target.tagName === "INPUT") changed(false); });
-  rebuildConditions();
+  rebuildConditions(true);
   const { req, bad } = collect();
   fill(ui.result, h("p", { class: "cw-pending", text: "Computing…" }));
   run.now(req, bad);

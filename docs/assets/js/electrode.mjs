@@ -1,5 +1,4 @@
 // Electrode: one half-reaction at a temperature, activities (or molalities through a model).
-import { calculate } from "./site.mjs";
 import { lineChart } from "./charts.mjs";
 import { runner } from "./runner.mjs";
 import {
@@ -96,38 +95,48 @@ export async function electrode(root) {
   const fieldFor = fieldMap({ "temp*": tField, pH: phField, id: idField, "ionic*": iField, model: modelField, env: envField },
     (name) => speciesField(speciesFields, name));
 
-  // Potential against temperature and against the first ion's activity (one calculation per point).
-  let chartTicket = 0;
-  async function drawCharts(req, r) {
-    const my = ++chartTicket;
-    const temps = [0, 10, 20, 25, 30, 40, 50, 60, 70, 80, 90, 100];
-    const tPts = [];
-    for (const t of temps) {
-      const out = await calculate("electrode", { ...req, temp_C: t });
-      if (my !== chartTicket) return;
-      if (out.ok) tPts.push([t, out.result.potential_V]);
+  // Potential against temperature and against the first ion's activity: the curves come with the
+  // result (calc computes them with the potential), so one change of input is one calculation.
+  function drawCharts(req, r) {
+    const c = r.curves || {};
+    const pts = (xs, ys) => xs.map((x, k) => [x, ys[k]]).filter((p) => typeof p[1] === "number");
+    const nodes = [];
+    if (c.temperature) {
+      nodes.push(lineChart({ title: "Potential against temperature", xLabel: "temperature (°C)", yLabel: "E (V vs SHE)",
+        series: [{ name: r.id, points: pts(c.temperature.temp_C, c.temperature.potential_V) }], marker: [r.temp_C, r.potential_V] }));
     }
-    const ion = [...speciesFields.entries()].find(([, f]) => f.phase === "aq");
-    const nodes = [lineChart({ title: "Potential against temperature", xLabel: "temperature (°C)", yLabel: "E (V vs SHE)", series: [{ name: r.id, points: tPts }], marker: [req.temp_C, r.potential_V] })];
-    if (ion && req.activities) {
-      const [name] = ion;
-      const aPts = [];
-      for (let lg = -8; lg <= 0; lg += 1) {
-        const out = await calculate("electrode", { ...req, activities: { ...req.activities, [name]: Math.pow(10, lg) } });
-        if (my !== chartTicket) return;
-        if (out.ok) aPts.push([lg, out.result.potential_V]);
-      }
-      nodes.push(lineChart({ title: "Potential against log activity of " + name, xLabel: "log₁₀ a(" + name + ")", yLabel: "E (V vs SHE)", series: [{ name, points: aPts }], marker: [Math.log10(req.activities[name]), r.potential_V] }));
+    const a = c.activity;
+    if (a && req.activities && req.activities[a.species] !== undefined) {
+      nodes.push(lineChart({ title: "Potential against log activity of " + a.species, xLabel: "log₁₀ a(" + a.species + ")", yLabel: "E (V vs SHE)",
+        series: [{ name: a.species, points: pts(a.log10_activity, a.potential_V) }], marker: [Math.log10(req.activities[a.species]), r.potential_V] }));
     }
     charts.replaceChildren(...nodes);
   }
 
+  // The result on the scales field engineers read (calc's potential_vs, each electrode at the
+  // request's temperature), with calc's notes on those electrodes.
+  function scalesTable(r) {
+    const vs = r.potential_vs || {};
+    const ids = Object.keys(vs);
+    const detail = r.potential_vs_detail || {};
+    if (!ids.length) return warningsList(detail.warnings);
+    return h("div", { class: "cw-scales" },
+      h("p", { class: "cw-scales-title", text: "On the scales of field work (each electrode at " + fmt(r.temp_C, 1) + " °C):" }),
+      h("table", { class: "cw-compare" },
+        h("thead", {}, h("tr", {}, h("th", { text: "Against" }), h("th", { text: "E (V)" }))),
+        h("tbody", {}, ids.map((id) => h("tr", {}, h("th", { scope: "row", text: id }),
+          h("td", { "data-cw-scale": id, text: signed(vs[id]) }))))),
+      warningsList(detail.warnings));
+  }
+
   function render(r, req) {
+    const more = r.potential_vs_detail || {};
     fill(ui.result,
       h("p", { class: "cw-big" }, h("span", { class: "cw-big-label", text: "E " }), h("span", { class: "cw-big-value", "data-cw-value": "potential_V", text: signed(r.potential_V) }), h("span", { class: "cw-unit", text: " V vs SHE" })),
       h("p", { class: "cw-direction", text: "E° at " + fmt(r.temp_C, 1) + " °C: " + signed(r.standard_potential_V) + " V vs SHE; your conditions shift it by " + signed(r.potential_V - r.standard_potential_V) + " V." }),
       r.hypothetical ? h("p", { class: "cw-warning", text: "Hypothetical couple: its ion is not stable in water; the value is a thermodynamic estimate." }) : null,
-      warningsList(r.warnings), charts, derivation(r.steps), sourcesLine(r.sources, r.data_version));
+      warningsList(r.warnings), scalesTable(r), charts, derivation([...(r.steps || []), ...(more.steps || [])]),
+      sourcesLine([...new Set([...(r.sources || []), ...(more.sources || [])])], r.data_version));
     drawCharts(req, r);
   }
   const run = runner(ui, "electrode", render, fieldFor);

@@ -1,7 +1,9 @@
 // Joint: two materials in a named environment; the decision, what to do, and where the pair sits
-// in the galvanic series.
+// on its scale (the galvanic series, or the anodic index for the legacy basis).
 import { siteRoot } from "./site.mjs";
+import { scaleChart } from "./charts.mjs";
 import { bindForm, runner } from "./runner.mjs";
+import { materialName } from "./names.mjs";
 import {
   allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
   known, materialOptions, numberInput, readInto, select, sourceLink, sourcesLine, verdictBadge, warningsList, writeUrl,
@@ -43,13 +45,46 @@ function seriesChartView() {
   };
 }
 
-function statesTable(states) {
+function statesTable(states, name) {
   const rows = states.map((st) => h("tr", {},
-    h("td", { text: st.a }), h("td", { text: st.b }), h("td", { text: st.anode || "—" }),
+    h("td", { text: name(st.a) }), h("td", { text: name(st.b) }), h("td", { text: st.anode ? name(st.anode) : "—" }),
     h("td", { text: fmt(st.delta_E_V, 3) }), h("td", { text: (st.delta_E_range_V || []).map((v) => fmt(v, 3)).join(" to ") }), h("td", {}, verdictBadge(st.verdict))));
   if (rows.length <= 1) return null;
   return h("details", { class: "cw-states", open: true }, h("summary", { text: "Passive and active states compared" }),
-    h("table", {}, h("thead", {}, h("tr", {}, ["First", "Second", "Anode", "ΔE (V)", "range (V)", "verdict"].map((t) => h("th", { text: t })))), h("tbody", {}, rows)));
+    h("table", {}, h("thead", {}, h("tr", {}, ["First", "Second", "Anode (attacked)", "ΔE (V)", "range (V)", "verdict"].map((t) => h("th", { text: t })))), h("tbody", {}, rows)));
+}
+
+// Where the two parts sit on the basis of the judgement, from the result's positions: the
+// galvanic series (ranges in V vs SCE) or the anodic index (one value per group; every group of
+// the dataset marked on the scale).
+function pairScale(r, ds, name) {
+  const index = r.basis === "anodic-index";
+  const ids = [...new Set([r.a, r.b])];
+  const rows = ids.map((id) => {
+    const p = (r.positions || {})[id];
+    if (!p) return null;
+    const [low, high] = p.range_V || [p.nominal_V, p.nominal_V];
+    const role = id === r.anode ? "anode" : id === r.cathode ? "cathode" : "part";
+    return { label: name(id) + (role === "part" ? "" : " (" + role + ")"), low, high, mid: p.nominal_V, role };
+  }).filter(Boolean);
+  if (!rows.length) return null;
+  const context = index ? [...new Set(ds.materials.map((m) => m.anodic_index_V).filter((v) => typeof v === "number"))] : [];
+  const what = index ? "anodic-index difference" : "ΔE";
+  return scaleChart({
+    title: index ? "The pair on the anodic-index scale" : "The pair in the galvanic series",
+    desc: index ? "Anodic index of each part (V, gold = 0); the ticks on the axis are the index groups of the dataset."
+      : "Published range of each part in V vs SCE, with its mid-point.",
+    axisLabel: index ? "anodic index (V); gold = 0; ticks: the index groups" : "corrosion potential, V vs SCE",
+    anodicEnd: index ? "high" : "low", rows, context, allowable: r.allowable_V,
+    gapLabel: what + " " + fmt(r.delta_E_V, 3) + " V",
+  });
+}
+
+// The screening rate in words that say what it is: an upper bound of the galvanic attack.
+function rateText(r) {
+  const rate = r.rate_mm_per_year;
+  if (!rate) return "not estimated: " + (r.rate_reason || "");
+  return "upper bound " + fmt(rate[0], 3) + " to " + fmt(rate[1], 3) + " mm/year";
 }
 
 function adviceNodes(r) {
@@ -86,31 +121,38 @@ export async function joint(root) {
   }
   const fieldFor = fieldMap({ a: aField, b: bField, env: envField, "area*": arField });
   const seriesChart = seriesChartView();
+  const name = (id) => materialName(ds, id);
   async function render(r) {
     const range = r.delta_E_range_V || [];
-    const rate = r.rate_mm_per_year;
+    const index = r.basis === "anodic-index";
+    const diff = index ? "Anodic-index difference" : "Potential difference ΔE";
     const chart = h("div", { class: "cw-series-box" });
+    const whole = index ? null : h("details", { class: "cw-series-whole" }, h("summary", { text: "The whole galvanic series, the pair highlighted" }), chart);
     fill(ui.result,
       h("p", { class: "cw-big" }, verdictBadge(r.verdict)),
       h("p", { class: "cw-direction", text: r.verdict_text }),
       h("p", { class: "cw-meaning", text: "“" + r.verdict + "”: " + r.verdict_meaning }),
       h("table", { class: "cw-compare" }, h("tbody", {},
-        h("tr", {}, h("th", { text: "Anode (attacked)" }), h("td", { text: r.anode_name || r.anode || "—" })),
-        h("tr", {}, h("th", { text: "Cathode" }), h("td", { text: r.cathode_name || r.cathode || "—" })),
+        h("tr", {}, h("th", { text: "Anode (attacked)" }), h("td", { text: r.anode_name || (r.anode ? name(r.anode) : "—") })),
+        h("tr", {}, h("th", { text: "Cathode" }), h("td", { text: r.cathode_name || (r.cathode ? name(r.cathode) : "—") })),
         h("tr", {}, h("th", { text: "Basis" }), h("td", {}, r.basis_description || r.basis, " ", sourceLink(r.basis_source))),
-        h("tr", {}, h("th", { text: "Potential difference ΔE, nominal" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
-        h("tr", {}, h("th", { text: "ΔE best to worst case" }), h("td", { text: range.map((v) => fmt(v, 3)).join(" to ") + " V" })),
-        h("tr", {}, h("th", { text: "Allowable ΔE in this environment" }), h("td", {}, fmt(r.allowable_V, 2) + " V ", sourceLink(r.allowable_source))),
+        h("tr", {}, h("th", { text: diff + ", nominal" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
+        index ? null : h("tr", {}, h("th", { text: "ΔE best to worst case" }), h("td", { text: range.map((v) => fmt(v, 3)).join(" to ") + " V" })),
+        h("tr", {}, h("th", { text: "Allowable " + (index ? "index difference" : "ΔE") + " in this environment" }), h("td", {}, fmt(r.allowable_V, 2) + " V ", sourceLink(r.allowable_source))),
         h("tr", {}, h("th", { text: "Area effect" }), h("td", { text: r.area_effect || "" })),
-        h("tr", {}, h("th", { text: "Extra attack on the anode (screening)" }), h("td", { "data-cw-value": "rate_mm_per_year", text: rate ? fmt(rate[0], 3) + " to " + fmt(rate[1], 3) + " mm/year" : "not estimated: " + (r.rate_reason || "") })))),
+        h("tr", {}, h("th", { text: "Galvanic attack on the anode, upper-bound screen" }), h("td", {},
+          h("span", { "data-cw-value": "rate_mm_per_year", text: rateText(r) }),
+          r.rate_mm_per_year ? h("div", { class: "cw-reason", text: "An upper bound, not a prediction: the cathode is taken to draw its full oxygen-limited current and all of it to leave through the anode. Real attack is usually less, and concentrated next to the joint." }) : null)))),
       warningsList(r.warnings),
-      statesTable(r.states || []),
+      statesTable(r.states || [], name),
       adviceNodes(r),
-      h("h3", { text: "Where the pair sits in the series" }), chart,
+      h("h3", { text: index ? "Where the pair sits on the anodic-index scale" : "Where the pair sits in the series" }),
+      pairScale(r, ds, name), whole,
       assumptionsBox(r.assumptions),
       derivation(r.steps),
       cautionsBox(r.cautions),
       sourcesLine(r.sources, r.data_version));
+    if (index) return;
     const svg = await seriesChart([r.a, r.b, ...((r.states || []).flatMap((st) => [st.a, st.b]))]);
     if (svg) chart.replaceChildren(svg);
   }
