@@ -1,7 +1,7 @@
 """calc.cpdesign.buried and calc.cpdesign.mass: galvanic anodes for buried structures, MIL-HDBK-1004/10.
 
 The worked examples are read in the public copy of MIL-HDBK-1004/10 (1990) that UFC 3-570-02N (2004)
-reproduces (transcription at buildingcriteria2.tpub.com; the page numbers are the handbook's) and in
+reproduces (the page numbers are the handbook's) and in
 UFC 3-570-02A (2005), Appendix C (the body of TM 5-811-7). Every number they print is checked with
 the printed inputs; the handbook writes pounds, feet and ohm-centimetres, converted here exactly.
 """
