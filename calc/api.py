@@ -34,6 +34,7 @@ ENTRY_POINTS = {
     "buried": "calc.cpdesign.buried:buried_entry",
     "groundbed": "calc.cpdesign.impressed:groundbed_entry",
     "wenner": "calc.cpdesign.resistivity:wenner_entry",
+    "tank": "calc.cpdesign.tankdesign:tank_entry",
 }
 
 

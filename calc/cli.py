@@ -9,7 +9,7 @@ import json
 import re
 import sys
 
-from . import api, dataset
+from . import api, clicp, dataset
 from .activity import MODELS
 from .bounds import BOUNDS
 from .errors import DataError, InputError
@@ -192,12 +192,7 @@ def build_parser():
     pv.add_argument("--w", type=_number, metavar="%", help="tungsten [wt %%]")
     pv.add_argument("--temp", type=_number, default=None, metavar="C", help=_bound("service temperature [°C]", "temp_C"))
     _water_options(pv)
-    stdin_json = [mx]
-    for name, words in (("anodes", "galvanic-anode design of an immersed structure (DNV-RP-B401 method)"),
-                        ("anode-resistance", "resistance and output of one galvanic anode by its shape"),
-                        ("buried", "galvanic anodes for a buried structure (MIL-HDBK-1004/10 method)"),
-                        ("groundbed", "impressed-current groundbed: resistance, rectifier, anode life")):
-        stdin_json.append(sub.add_parser(name, help=words + "; the request as JSON on standard input"))
+    stdin_json = [mx, *clicp.add_parsers(sub, _number)]  # the design commands: options, or JSON on stdin
     wn = sub.add_parser("wenner", help="soil resistivity from a Wenner four-pin reading (ASTM G57: ρ = 2πaR)")
     wn.add_argument("--spacing-m", dest="spacing_m", type=_number, required=True, metavar="A", help="pin spacing [m]")
     wn.add_argument("--resistance-ohm", dest="resistance_ohm", type=_number, required=True, metavar="R",
@@ -266,16 +261,10 @@ def _request(ns):
         if ns.polarisation is not None:
             req["polarisation_mV"] = ns.polarisation
         return _water_request(ns, req)
-    if cmd in ("mixed", "anodes", "anode-resistance", "buried", "groundbed"):
-        try:
-            req = json.loads(sys.stdin.read())
-        except ValueError as exc:
-            raise InputError("request", "standard input", f"a JSON object ({exc})") from None
-        except OSError:  # no standard input to read (closed, or a terminal that cannot be read)
-            raise InputError("request", "standard input", "a JSON object on standard input") from None
-        if not isinstance(req, dict):
-            raise InputError("request", type(req).__name__, "a JSON object")
-        return req
+    if cmd in clicp.OPTIONS:
+        return clicp.request_of(ns, sys.stdin)
+    if cmd == "mixed":
+        return clicp.read_stdin(sys.stdin)
     if cmd == "wenner":
         return {"spacing_m": ns.spacing_m, "resistance_ohm": ns.resistance_ohm}
     if cmd == "passivity":

@@ -22,6 +22,7 @@ HEADLINE = {
     "buried": ["current_required_A", "anode_output_mA", "count", "governed_by", "life_of_count_years"],
     "groundbed": ["resistance_ohm", "single_anode_ohm", "count", "life_years"],
     "wenner": ["resistivity_ohm_m", "resistivity_ohm_cm", "depth_m"],
+    "tank": ["resistance_ohm", "single_anode_ohm", "current_required_A", "count_for_rating"],
 }
 
 

@@ -78,6 +78,8 @@ def test_bulkhead_galvanic_example():
     # MIL-HDBK-1004/10 (1990) p. 201, sheet-pile bulkhead (section 9.10.2): 2.96 × 36 × 1,000 = 106,560 ft²
     # × 0.5 mA/ft² = 53.28 A, 44,400 ft² × 0.2 mA/ft² = 8.88 A, front total 62.16 A; shore side 166,125 ft²
     # × 0.05 mA/ft² = 8.3 A; N = 62.16/4.75 = 13.08 ("say 13"; printed truncated)
+    assert (2.96 * 36 * 1000, 2.96 * 15 * 1000, 2.96 * 56 * 1000) == (
+        pytest.approx(106560), pytest.approx(44400), pytest.approx(165760))  # the areas, ft²
     front = _amps(2.96 * 36 * 1000, 0.5), _amps(2.96 * 15 * 1000, 0.2)
     assert front == pytest.approx((53.28, 8.88), abs=1e-9)
     assert sum(front) == pytest.approx(62.16, abs=1e-9)
@@ -147,6 +149,12 @@ def test_entry_zinc_and_a_recalled_constant_is_flagged():
     assert any("recalled" in w["message"] for w in r["warnings"])
 
 
+def test_a_given_constant_says_the_coating_is_not_used():
+    r = buried_entry(dict(PIPELINE_17LB, coating="bare", output_constant=150000))
+    assert r["output_constant"] == 150000
+    assert any(w["field"] == "coating" for w in r["warnings"])
+
+
 def test_low_resistivity_warns():
     r = buried_entry(dict(PIPELINE_17LB, resistivity_ohm_m=3.0))
     assert any(w["field"] == "resistivity_ohm_m" for w in r["warnings"])
@@ -162,6 +170,8 @@ def test_low_resistivity_warns():
     ({"anode": "18-lb-packaged"}, "anode"),
     ({"structure_potential_V_CSE": -1.5}, "structure_potential_V_CSE"),
     ({"coating": "painted"}, "coating"),
+    ({"coating": ["bare"]}, "coating"),
+    ({"alloy": "zinc", "anode": None, "size_factor": 1.0, "anode_mass_kg": 10, "coating": "painted"}, "coating"),
     ({"current_A": 0}, "current_A"),
     ({"current_A": None, "area_m2": 100}, "current_density_mA_per_m2"),
     ({"current_A": None, "area_m2": 100, "current_density_mA_per_m2": 20, "coating_efficiency": 1.0},

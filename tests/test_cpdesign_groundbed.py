@@ -12,8 +12,9 @@ import math
 
 import pytest
 
+from calc.cpdesign.buried import current_required
 from calc.cpdesign.groundbed import (cable_resistance, count_for_resistance, dwight_horizontal, dwight_vertical,
-                                     group_resistance, handbook_group, rectifier, shape_function,
+                                     group_resistance, handbook_group, handbook_vertical, rectifier, shape_function,
                                      structure_resistance, sunde)
 from calc.cpdesign.impressed import groundbed_entry
 from calc.cpdesign.mass import count_for, handbook_life, handbook_mass
@@ -53,6 +54,22 @@ def test_single_vertical_anodes_of_the_examples():
     assert dwight_vertical(45.0, 5 * FT_M, 2 * IN_M) == pytest.approx(21.06, abs=0.01)
     # ETL 1110-9-10 p. 27: R_A = 8.53 Ω for the 3 in × 5 ft canisters in 2000 Ω·cm (its K is not shown: 0.3 %)
     assert dwight_vertical(20.0, 5 * FT_M, 3 * IN_M) == pytest.approx(8.53, rel=3e-3)
+
+
+@pytest.mark.parametrize("rho_ohm_cm, length_ft, k, printed, where", [
+    (22, 1, 0.008, 0.176, "MIL-HDBK-1004/10 p. 209, A-120 anodes (K of its Table 22)"),
+    (22, 2, 0.012, 0.132, "MIL-HDBK-1004/10 p. 209, A-120-1 anodes"),
+    (22, 4, 0.017, 0.093, "MIL-HDBK-1004/10 p. 209, A-120-2 anodes"),
+    (22, 5, 0.0234, 0.103, "MIL-HDBK-1004/10 p. 211, 2- by 60-inch anodes in seawater"),
+    (250, 5, 0.0234, 1.17, "MIL-HDBK-1004/10 p. 204, bulkhead front side"),
+    (1000, 5, 0.0234, 4.68, "MIL-HDBK-1004/10 p. 205, shore side without backfill"),
+    (1000, 10, 0.0186, 1.86, "MIL-HDBK-1004/10 p. 205, with the 10-inch backfill"),
+    (2000, 7, 0.0167, 4.77, "MIL-HDBK-1004/10 p. 181, the gas main's backfilled anode"),
+    (4500, 5, 0.0234, 21.06, "ETL 1110-9-10 p. 35, eq 1-6"),
+])
+def test_single_anode_from_the_printed_shape_function(rho_ohm_cm, length_ft, k, printed, where):
+    # R_V = (P/L)·K with the K the handbook prints, each result to its last printed figure
+    assert handbook_vertical(rho_ohm_cm / 100, length_ft * FT_M, k) == pytest.approx(printed, abs=0.005), where
 
 
 # ------------------------------------------------------------------ groundbeds of N anodes, the handbooks' form
@@ -126,6 +143,35 @@ def test_etl_example_2_3_groundbed():
     fourteen = group_resistance("table", 21.06, 45.0, None, None, 14, 10 * FT_M)[0]
     assert nine == pytest.approx(3.29, abs=0.005)
     assert fourteen == pytest.approx(2.26, abs=0.005)
+
+
+def test_etl_deep_anode_bed_current_count_and_cables():
+    # USACE ETL 1110-9-10 (1991) p. 61: A = 12,152 + 1,414 + 6,242 = 19,808 ft² of bare pipe; I = 19,808 × 2 mA/ft² ×
+    # (1.0 − 0.0) = 39,616 mA ("39.6 amp; use 40 amp"); N = 40/8.0 = 5 tubular anodes (8 A each in coke breeze)
+    assert (28000 * 0.434, 1200 * 1.178, 3600 * 1.734) == (pytest.approx(12152), pytest.approx(1414, abs=0.5),
+                                                             pytest.approx(6242, abs=0.5))
+    assert current_required(19808 * FT2_M2, 2 / FT2_M2, 0.0) == pytest.approx(39616, abs=0.5)
+    assert count_for(40, 8.0) == 5
+    # pp. 52-53 (eq 1-15): top cable 200 ft × 0.254 Ω/1000 ft = 0.051 Ω, bottom cable 291 ft: 0.074 Ω; the anode
+    # column's 91 ft carries current out along its length: half its resistance, 0.012 Ω
+    assert cable_resistance(200 * FT_M, 0.254 / FT_M) == pytest.approx(0.051, abs=5e-4)
+    assert cable_resistance(291 * FT_M, 0.254 / FT_M) == pytest.approx(0.074, abs=5e-4)
+    assert cable_resistance(91 * FT_M, 0.254 / FT_M) / 2 == pytest.approx(0.012, abs=5e-4)
+
+
+def test_etl_tank_header_cable():
+    # USACE ETL 1110-9-10 (1991) p. 73: two No. 10 AWG positive wires in parallel, 1.02/2 = 0.51 Ω per 1000 ft,
+    # R_W = 115 ft × 0.51/1000 ft = 0.06 Ω
+    assert cable_resistance(115 * FT_M, 1.02 / 2 / FT_M) == pytest.approx(0.06, abs=0.005)
+
+
+def test_the_count_for_the_resistance_names_its_method():
+    req = {"resistivity_ohm_m": 20, "length_m": 7 * FT_M, "diameter_m": 10 * IN_M, "count": 3, "spacing_m": 20 * FT_M,
+           "max_resistance_ohm": 2.0}
+    assert groundbed_entry(req)["count_for_resistance"]["method"] == "table"
+    s = groundbed_entry(dict(req, paralleling="sunde"))
+    assert s["count_for_resistance"]["method"] == "sunde" and s["paralleling"]["method"] == "sunde"
+    assert any("Sunde" in step["title"] for step in s["steps"])
 
 
 def test_etl_example_2_3_as_an_entry():
@@ -231,6 +277,8 @@ BASE = {"resistivity_ohm_m": 20, "length_m": 2.0, "diameter_m": 0.25}
     ({"anode_material": "zinc", "anode_mass_kg": 10, "current_A": 1}, "anode_material"),  # not an ICCP material
     ({"anode_rating_A": 1.0}, "current_A"),
     ({"depth": 1}, "depth"),
+    ({"life_years": 0}, "life_years"),
+    ({"life_years": -20}, "life_years"),
 ])
 def test_bad_input_is_refused_naming_the_field(change, field):
     with pytest.raises(InputError) as exc:

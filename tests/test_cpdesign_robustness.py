@@ -1,8 +1,9 @@
 """The design entry points under arbitrary input: a plain-JSON result or one InputError, never another exception.
 
-Until the entries join ``calc.api.ENTRY_POINTS`` (and so ``tests/test_robustness.py``), this file
-drives them the same way: valid requests with fields replaced by junk (missing, wrong types, NaN,
-±Infinity, huge and tiny numbers, negative values, unknown names, nested junk).
+Every field of every design entry point is driven here (``tests/test_robustness.py`` takes the
+same requests for its run over all entry points): a worked request (VALID), each optional field
+with a good value of its own (OPTIONAL), and fields made missing or replaced by junk (wrong types,
+NaN, ±Infinity, huge and tiny numbers, negative values, unknown names, nested junk).
 """
 
 import json
@@ -12,7 +13,9 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from calc.cpdesign import anode_resistance_entry, anodes_entry, buried_entry, groundbed_entry, wenner_entry
+from calc.cpdesign import anode_resistance_entry, anodes_entry, buried_entry, groundbed_entry, tank_entry, wenner_entry
+from calc import clicp
+from calc.cpdesign import anodes, buried, galvanic, impressed, tankdesign
 from calc.errors import InputError
 
 JUNK = st.one_of(
@@ -33,7 +36,65 @@ VALID = {
                                     "spacing_m": 6.1, "current_A": 5, "max_resistance_ohm": 2,
                                     "anode_material": "high-silicon-cast-iron", "anode_mass_kg": 27}),
     "wenner": (wenner_entry, {"spacing_m": 3.0, "resistance_ohm": 2.0}),
+    "tank": (tank_entry, {"resistivity_ohm_m": 86, "tank_diameter_m": 1.167, "arrangement": "centre",
+                          "anode_length_m": 0.2286, "anode_diameter_m": 0.0381, "count": 3, "spacing_m": 1.2192,
+                          "current_A": 0.84}),
 }
+
+#: every other field each entry takes, with a good value of its own (alone it may still clash with VALID)
+OPTIONAL = {
+    "anodes": {"current_initial_A": 60, "current_mean_A": 40, "current_final_A": 50, "region": "temperate",
+               "capacity_Ah_per_kg": 2000, "closed_circuit_V": -1.05, "utilisation": 0.85, "protection_V": -0.8,
+               "structure": "carbon-steel"},
+    "anode-resistance": {"periphery_m": 0.6, "width_m": 0.2, "area_m2": 0.36},
+    "buried": {"area_m2": 400, "current_density_mA_per_m2": 20, "coating_efficiency": 0.9, "size_factor": 1.0,
+               "anode_mass_kg": 7.7, "structure_potential_V_CSE": -0.9, "coating": "bare", "output_constant": 120000},
+    "groundbed": {"orientation": "horizontal", "depth_m": 1.5, "paralleling": "sunde", "cable_length_m": 100,
+                  "cable_ohm_per_km": 1.2, "cable_resistance_ohm": 0.1, "structure_resistance_ohm": 0.2,
+                  "coating_resistance_ohm_m2": 250, "structure_area_m2": 1000, "back_emf_V": 2, "margin": 0.25,
+                  "consumption_kg_per_A_yr": 0.45, "life_years": 20, "anode_rating_A": 2},
+    "wenner": {},
+    "tank": {"area_m2": 20, "wall_height_m": 1.5, "bottom": "ellipsoidal", "bottom_depth_m": 0.3,
+             "current_density_mA_per_m2": 30, "coating_efficiency": 0.5, "circle_radius_m": 0.4,
+             "equivalent_diameter_factor": 0.07, "fringe_factor": 0.48, "hoop_diameter_m": 0.6,
+             "wire_diameter_m": 0.0016, "depth_m": 0.8, "life_years": 15, "anode_material": "high-silicon-cast-iron",
+             "consumption_kg_per_A_yr": 0.45, "efficiency": 0.5, "anode_mass_kg": 2, "anode_rating_A": 0.5,
+             "wire_rating_A_per_m": 0.3, "max_resistance_ohm": 50, "cable_length_m": 20, "cable_ohm_per_km": 8,
+             "cable_resistance_ohm": 0.05, "structure_resistance_ohm": 0.0, "coating_resistance_ohm_m2": 10,
+             "structure_area_m2": 20, "back_emf_V": 0, "margin": 0.25},
+}
+#: the fields each entry reads (its module's own list, the required ones first)
+TAKES = {
+    "anodes": galvanic.FIELDS,
+    "anode-resistance": ("shape", "resistivity_ohm_m") + anodes.RESISTANCE_FIELDS,
+    "buried": buried.FIELDS,
+    "groundbed": impressed.FIELDS,
+    "wenner": ("spacing_m", "resistance_ohm"),
+    "tank": ("resistivity_ohm_m", "tank_diameter_m", "arrangement") + tankdesign.FIELDS,
+}
+
+
+def _cli_options():
+    """command -> [(option, a good value as typed)] of the design commands, from VALID and OPTIONAL."""
+    out = {}
+    for name, (_, options) in clicp.OPTIONS.items():
+        good = {**OPTIONAL[name], **VALID[name][1]}
+        anode = good["anode"] if isinstance(good.get("anode"), dict) else {}
+        out[name] = []
+        for flag, field, _, _ in options:
+            value = anode.get(field[len("anode."):]) if field.startswith("anode.") else good.get(field)
+            if value is not None and not isinstance(value, (dict, list)):
+                out[name].append((flag, str(value)))
+    return out
+
+
+#: the design commands' options with good values, for tests/test_robustness.py's run over the command line
+CLI = _cli_options()
+
+
+def test_every_field_of_every_design_entry_is_driven():
+    for name, (_, valid) in VALID.items():
+        assert set(valid) | set(OPTIONAL[name]) == set(TAKES[name]), name
 
 
 def _finite(value):
@@ -66,9 +127,13 @@ def test_the_valid_request_gives_a_plain_json_result(name):
 def test_junk_gives_a_result_or_one_clear_error(name, data):
     func, valid = VALID[name]
     req = json.loads(json.dumps(valid))
-    for key in data.draw(st.lists(st.sampled_from(sorted(valid) + ["extra"]), min_size=1, max_size=3)):
-        if data.draw(st.booleans()) and key in req:
+    keys = sorted(valid) + sorted(OPTIONAL[name]) + ["extra"]
+    for key in data.draw(st.lists(st.sampled_from(keys), min_size=1, max_size=4)):
+        how = data.draw(st.integers(0, 2))
+        if how == 0 and key in req:
             del req[key]
+        elif how == 1 and key in OPTIONAL[name]:
+            req[key] = OPTIONAL[name][key]
         else:
             req[key] = data.draw(JUNK)
     try:

@@ -217,6 +217,18 @@ ELECTRODE = F(st.fixed_dictionaries({"name": LABEL.good, "area_cm2": number(1e-3
               st.one_of(st.fixed_dictionaries({"name": LABEL.any, "area_cm2": number(1e-3, 1e6).any,
                                                "reactions": st.lists(REACTION.any, max_size=3)}), JUNK))
 
+#: the service conditions of a joint, a matrix and a measured joint (calc.service, issue 15)
+SERVICE = {
+    "temp_C": CONDITIONS["temp_C"], "salinity": number(0, 45, [0, 2, 35]),
+    "chloride_mg_per_L": number(1e-3, 25000, [50, 19000]), "o2_mg_L": number(0, 14, [0, 8]),
+    "aeration": F(st.sampled_from(["air-saturated", "deaerated", "Air saturated"]),
+                  st.one_of(st.sampled_from(["aerated", ""]), JUNK)),
+    "velocity_m_s": number(0, 30, [0, 3]),
+    "geometry": F(st.sampled_from(["still", "pipe", "surface", "hull"]), st.one_of(st.sampled_from(["duct", ""]), JUNK)),
+    "diameter_m": number(1e-3, 10, [0.1]), "length_m": number(1e-3, 1000, [1]), "pH": CONDITIONS["pH"],
+    "conductivity_S_per_m": number(1e-4, 20, [0.04, 5]), "anode_area_cm2": number(0.01, 1e8, [100]),
+}
+
 #: entry point -> (required fields, optional fields), each a field name -> F
 FIELDS = {
     "electrode": ({"id": ident(HALF_IDS)}, dict(CONDITIONS)),
@@ -233,12 +245,13 @@ FIELDS = {
                   "env": ident(ENV_IDS), "model": MODEL, "temp_C": CONDITIONS["temp_C"],
                   "size_angstrom": number(1, 15, [3, 9]), "molality": number(5e-324, 50, [1e-12, 1])}),
     "joint": ({"a": ident(MATERIAL_IDS), "b": ident(MATERIAL_IDS), "env": ident(ENV_IDS)},
-              {"area_ratio": number(5e-324, 1e6, [1e-3, 1, 1000, 1000.5])}),
+              {"area_ratio": number(5e-324, 1e6, [1e-3, 1, 1000, 1000.5]), **SERVICE}),
     "matrix": ({"env": ident(ENV_IDS)},
                {"materials": F(st.lists(ident(MATERIAL_IDS).good, min_size=1, max_size=8),
                                st.one_of(st.just([]), st.lists(ident(MATERIAL_IDS).any, min_size=1, max_size=4),
                                          JUNK)),
-                "csv": F(st.booleans(), st.one_of(st.sampled_from([0, 1, "true", "yes", ""]), JUNK))}),
+                "csv": F(st.booleans(), st.one_of(st.sampled_from([0, 1, "true", "yes", ""]), JUNK)),
+                **{k: f for k, f in SERVICE.items() if k != "anode_area_cm2"}}),
     "eph": ({"lines": F(st.lists(EPH_LINE.good, min_size=1, max_size=4),
                         st.one_of(st.just([]), st.lists(EPH_LINE.good, min_size=9, max_size=10),
                                   st.lists(EPH_LINE.any, min_size=1, max_size=3), JUNK))},
@@ -251,14 +264,20 @@ FIELDS = {
                   "b_reading_V": number(-2.5, 1.5, [-0.2, 0]), "electrode": ident(REF_IDS), "env": ident(ENV_IDS)},
                  {"temp_C": CONDITIONS["temp_C"], "salinity": number(1e-3, 45, [2, 35]),
                   "chloride_mg_per_L": number(1e-3, 25000, [19000]), "a_material": ident(MATERIAL_IDS),
-                  "b_material": ident(MATERIAL_IDS)}),
+                  "b_material": ident(MATERIAL_IDS),
+                  **{k: f for k, f in SERVICE.items() if k not in ("temp_C", "salinity", "chloride_mg_per_L")}}),
     "cp": ({"structure": ident(sorted(STRUCTURES)), "setting": ident(sorted(SETTINGS)),
             "reading_V": number(-2.5, 1.5, [-0.85, -1.05, -1.1]), "electrode": ident(REF_IDS),
             "reading_kind": F(st.sampled_from(list(READING_KINDS) + ["ON", "Instant-Off"]),
                               st.one_of(st.sampled_from(["off", "", "instant off"]), JUNK))},
            {"temp_C": CONDITIONS["temp_C"], "polarisation_mV": number(-500, 500, [100, 0]),
             "structure_temp_C": number(-5, 100, [40, 60]), "salinity": number(1e-3, 45, [2, 35]),
-            "chloride_mg_per_L": number(1e-3, 25000, [19000])}),
+            "chloride_mg_per_L": number(1e-3, 25000, [19000]),
+            # the readings of the test post and the IR-drop choice (issue 17)
+            "on_V": number(-2.5, 1.5, [-1.05]), "native_V": number(-1.0, 0.5, [-0.65]),
+            "ir_drop_method": F(st.sampled_from(["none", "measured", "history", "characteristics", "evidence"]),
+                                st.one_of(st.sampled_from(["", "Measured ", "coupon"]), JUNK)),
+            "ir_drop_mV": number(0, 5000, [0, 100]), "unit": F(st.sampled_from(["V", "mV"]), JUNK)}),
     "mixed": ({"electrodes": F(st.lists(ELECTRODE.good, min_size=1, max_size=3),
                                st.one_of(st.just([]), st.lists(ELECTRODE.any, min_size=1, max_size=3), JUNK))}, {}),
     "passivity": ({"cr": number(0, 40, [18, 22, 25]), "mo": number(0, 10, [2.5, 3.1]), "n": number(0, 1, [0.17])},
@@ -266,9 +285,11 @@ FIELDS = {
                    "chloride_mg_per_L": number(1e-3, 25000, [200, 19000])}),
 }
 # the design entry points: each field of a worked request (tests/test_cpdesign_robustness.py) kept or made junk
-from test_cpdesign_robustness import VALID as _DESIGN  # noqa: E402
+from test_cpdesign_robustness import CLI as _DESIGN_CLI, OPTIONAL as _DESIGN_OPTIONAL, VALID as _DESIGN  # noqa: E402
 
-FIELDS.update({name: ({k: F(st.just(v), JUNK) for k, v in req.items()}, {}) for name, (_, req) in _DESIGN.items()})
+FIELDS.update({name: ({k: F(st.just(v), JUNK) for k, v in req.items()},
+                      {k: F(st.just(v), JUNK) for k, v in _DESIGN_OPTIONAL[name].items()})
+               for name, (_, req) in _DESIGN.items()})
 assert sorted(FIELDS) == sorted(api.ENTRY_POINTS), "every entry point has a request strategy here"
 
 
@@ -278,6 +299,8 @@ ONE_SOURCE = {"electrode": (("ionic_strength", "env", "composition"), True),
               "couple": (("ionic_strength", "env", "composition"), True),
               "activity": (("ionic_strength", "env", "composition"), False),
               "measured": (("salinity", "chloride_mg_per_L"), True),
+              "joint": (("salinity", "chloride_mg_per_L"), True),
+              "matrix": (("salinity", "chloride_mg_per_L"), True),
               "cp": (("salinity", "chloride_mg_per_L"), True)}
 
 
@@ -485,7 +508,9 @@ COMMANDS = {
                    ("--chloride", num_arg(1e-3, 25000)), ("--json", SWITCH)], ("--salinity", "--chloride")),
     "wenner": ([], [("--spacing-m", num_arg(0.1, 100, [3])), ("--resistance-ohm", num_arg(0.01, 1000, [2]))],
                [("--json", SWITCH)], ()),
-    **{name: ([], [], [("--json", SWITCH)], ()) for name in ("anodes", "anode-resistance", "buried", "groundbed")},
+    # the design commands: options with good values (a request from options), none (JSON on stdin, here none)
+    **{name: ([], [], [(flag, F(st.just(v), ARG_TEXT)) for flag, v in opts] + [("--json", SWITCH)], ())
+       for name, opts in _DESIGN_CLI.items()},
 }
 assert sorted(COMMANDS) == sorted(api.ENTRY_POINTS), "every calculation command has an argument strategy here"
 

@@ -27,6 +27,8 @@ from .units import LB_KG, ohm_cm
 RESISTIVITY_MIN_OHM_CM = 500.0
 #: the structure potential of the factor y when the request gives none [V vs CSE] (NACE -0.85 V criterion)
 POTENTIAL_DEFAULT_V_CSE = -0.85
+#: the structure's coating as the output constant's table tells them apart -> its row for magnesium
+COATINGS = {"well-coated": "magnesium-well-coated", "bare": "magnesium-bare"}
 #: alloy id -> the column of the potential-factor table and the alloy of the output constant
 ALLOY_FAMILY = {"magnesium": "magnesium", "magnesium-high-potential": "magnesium", "zinc": "zinc"}
 FIELDS = ("current_A", "area_m2", "current_density_mA_per_m2", "coating_efficiency", "resistivity_ohm_m", "alloy",
@@ -107,16 +109,17 @@ def potential_factor(potential, family):
 
 def _constant(request, family, d):
     """The output constant C [mA·Ω·cm], given or from the table."""
+    coating = request.get("coating", "well-coated")
+    if not isinstance(coating, str) or coating not in COATINGS:
+        raise InputError("coating", coating, "well-coated or bare (poorly coated)")
     if request.get("output_constant") is not None:
+        if request.get("coating") is not None:
+            d.warn("coating", "output_constant is given, so the coating (which only chooses C) is not used")
         return check("constant_C", request["output_constant"], "output_constant")
     tab = table("output-constant")
-    coating = request.get("coating", "well-coated")
     rows = [r for r in tab["rows"] if r["alloy"] == family]
     if family == "magnesium":
-        key = {"well-coated": "magnesium-well-coated", "bare": "magnesium-bare"}.get(coating)
-        if key is None:
-            raise InputError("coating", coating, "well-coated or bare (poorly coated)")
-        rows = [r for r in rows if r["id"] == key]
+        rows = [r for r in rows if r["id"] == COATINGS[coating]]
     row = rows[0]
     src, conf = row_source(tab, row)
     d.cite(src)
@@ -153,8 +156,25 @@ def _anode(request, d):
     return f, mass, None
 
 
-def _current(request, d):
-    """The current required [A], given or from the area, density and coating efficiency."""
+def read_current(request, d):
+    """The current a request needs: current_A as given, or I = A·I'·(1 − CE) from the area.
+
+    Args:
+        request: the request, with current_A, or area_m2 with current_density_mA_per_m2 and
+            coating_efficiency (0 when not given) [A, m², mA/m², unitless]
+        d: the derivation the step is written to [unitless]
+
+    Returns:
+        the current required [A]
+
+    References:
+        :func:`current_required` (USACE ETL 1110-9-10, 1991, eq 1-1).
+
+    >>> from calc.derivation import Derivation
+    >>> round(read_current({"area_m2": 1095.4, "current_density_mA_per_m2": 21.528,
+    ...                     "coating_efficiency": 0.9}, Derivation()), 3)
+    2.358
+    """
     area_given = request.get("area_m2") is not None
     if request.get("current_A") is not None:
         if area_given:
@@ -210,7 +230,7 @@ def buried_entry(request):
     if family is None:
         raise InputError("alloy", request["alloy"], "one of " + ", ".join(ALLOY_FAMILY))
     d.cite(bur["source"])
-    amps = _current(request, d)
+    amps = read_current(request, d)
     s, e = bur["consumption_kg_per_A_yr"], bur["efficiency"]
     w = handbook_mass(life, s, amps, e)
     d.step("Anode mass for the life", "W = Y·S·I/E", f"W = {fmt(life)} yr × {fmt(s, 5)} kg/(A·yr) × {fmt(amps, 5)} A "

@@ -37,8 +37,18 @@ IMPRESSED = (
     "reversed connection makes the structure the anode and corrodes it fast.",
 )
 
+#: impressed current inside water storage tanks
+TANK = (
+    "Drinking water: anodes, wires, fittings and coatings in contact with potable water must be of materials "
+    "approved for it under the regulations that apply; design and install them with the water utility.",
+    "Ice: where the water can freeze, suspended anodes and their wires are torn away by ice; the handbooks' "
+    "freezing-tank example uses anodes fixed to the tank instead (UFC 3-570-02A, Appendix D).",
+    IMPRESSED[1],
+)
+
 #: method -> its cautions, common ones first
 _BY_METHOD = {"offshore": COMMON + OFFSHORE, "buried": COMMON + BURIED, "impressed": COMMON + IMPRESSED,
+              "tank": COMMON + TANK,
               "resistivity": ("A Wenner reading gives the average resistivity to a depth about equal to the pin "
                               "spacing; measure at several spacings and along the route, and use the lower "
                               "values for anode output.",)}
@@ -48,7 +58,7 @@ def cautions(method):
     """The cautions of one design method, as a list of sentences.
 
     Args:
-        method: ``offshore``, ``buried``, ``impressed`` or ``resistivity`` [unitless]
+        method: ``offshore``, ``buried``, ``impressed``, ``tank`` or ``resistivity`` [unitless]
 
     Returns:
         list of plain-words cautions

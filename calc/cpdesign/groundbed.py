@@ -60,6 +60,29 @@ def shape_function(length, diameter):
     return HANDBOOK_K * (math.log(8.0 * length / diameter) - 1.0)
 
 
+def handbook_vertical(resistivity, length, k):
+    """Resistance of a single vertical anode from the handbooks' shape function, R_V = ρ·K/L.
+
+    For an anode of a catalogue whose K the handbook tabulates (K for ρ in Ω·cm and L in ft);
+    :func:`shape_function` gives the K of Dwight's equation for any L/d.
+
+    Args:
+        resistivity: electrolyte resistivity ρ [Ω·m]
+        length: anode length L [m]
+        k: the handbook's shape function K of the anode [ft/cm]
+
+    Returns:
+        resistance to remote earth [Ω]
+
+    References:
+        MIL-HDBK-1004/10 (1990) para 6.2.1.4a, R_V = (P/L)K; USACE ETL 1110-9-10 (1991) eq 1-6, R_A = ρK/L.
+
+    >>> round(handbook_vertical(0.22, 4 * 0.3048, 0.017), 3)  # MIL-HDBK-1004/10 p. 209: 0.093 Ω
+    0.093
+    """
+    return ohm_cm(resistivity) * k / feet(length)
+
+
 def dwight_horizontal(resistivity, length, diameter, depth):
     """Resistance of a single horizontal anode at a depth, with its image (S = 2h); from memory.
 

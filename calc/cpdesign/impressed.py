@@ -92,8 +92,26 @@ def _group(request, rho, single, orientation, length, diameter, d):
     return value, n, method, {"method": method, "factor": None, "confidence": "recalled", "source": None}, spacing
 
 
-def _circuit(request, bed, d):
-    """{groundbed, cable, structure, total} resistances [Ω]."""
+def read_circuit(request, bed, d):
+    """The circuit of a request: groundbed, cable and structure resistances and their sum, R_T = R_N + R_W + R_C.
+
+    Args:
+        request: the request, with cable_resistance_ohm or cable_length_m and cable_ohm_per_km, and
+            structure_resistance_ohm or coating_resistance_ohm_m2 with structure_area_m2 [Ω, m, Ω/km, Ω·m², m²]
+        bed: the groundbed's (or the anodes') resistance R_N [Ω]
+        d: the derivation the steps are written to [unitless]
+
+    Returns:
+        dict with groundbed, cable, structure and total [Ω]
+
+    References:
+        USACE ETL 1110-9-10 (1991) eq 1-3, 1-15 and 1-16 (:func:`calc.cpdesign.groundbed.cable_resistance`,
+        :func:`calc.cpdesign.groundbed.structure_resistance`).
+
+    >>> from calc.derivation import Derivation
+    >>> round(read_circuit({"cable_resistance_ohm": 0.05}, 0.01, Derivation())["total"], 3)  # the pier: 0.06 Ω
+    0.06
+    """
     cable = 0.0
     if request.get("cable_resistance_ohm") is not None:
         cable = check("circuit_ohm", request["cable_resistance_ohm"], "cable_resistance_ohm")
@@ -151,8 +169,25 @@ def _life(request, amps, n, d):
     return years
 
 
-def _rectifier(request, total, d):
-    """The rectifier's output and rating, or None without a design current."""
+def read_rectifier(request, total, d):
+    """The rectifier of a request: output at the design current and rating with the margin, or None.
+
+    Args:
+        request: the request, with current_A and optionally margin and back_emf_V [A, unitless, V]
+        total: the total circuit resistance R_T [Ω]
+        d: the derivation the steps and warnings are written to [unitless]
+
+    Returns:
+        dict with current_A, voltage_V, rated_current_A, rated_voltage_V, margin, back_emf_V, or None
+        without a design current
+
+    References:
+        :func:`calc.cpdesign.groundbed.rectifier` (MIL-HDBK-1004/10; the margin is ours).
+
+    >>> from calc.derivation import Derivation
+    >>> round(read_rectifier({"current_A": 14.7, "back_emf_V": 3, "margin": 0}, 0.06, Derivation())["voltage_V"], 3)
+    3.882
+    """
     if request.get("current_A") is None:
         return None
     amps = check("current_A", request["current_A"])
@@ -178,7 +213,7 @@ def _target(request, rho, single, n, method, spacing, length, diameter, bed, che
     if n > 1 or request.get("spacing_m") is not None:
         sp = spacing or check("spacing_m", request["spacing_m"])
         cnt, val = count_for_resistance(single, rho, sp, target, method or "table", length, diameter)
-        found = {"count": cnt, "resistance_ohm": val}
+        found = {"count": cnt, "resistance_ohm": val, "method": method or "table"}
         d.step("Anodes needed for the resistance", f"the fewest N with R_N ≤ {fmt(target)} Ω", f"S = {fmt(sp)} m",
                f"N = {cnt}" if cnt else "no count of the table reaches it")
     checks.append({"name": "groundbed resistance", "passed": bed <= target,
@@ -231,18 +266,20 @@ def groundbed_entry(request):
                                 "diameter_m": "the anode (or backfill column) diameter in m"}, FIELDS)
     d = Derivation()
     rho = check("resistivity_ohm_m", request["resistivity_ohm_m"])
+    if request.get("life_years") is not None:  # a bad life is refused even where it is not needed
+        check("life_years", request["life_years"])
     single, orientation, length, diameter = _single(request, rho, d)
     d.cite("mil-hdbk-1004-10")
     bed, n, method, par, spacing = _group(request, rho, single, orientation, length, diameter, d)
     checks = []
     by_r = _target(request, rho, single, n, method, spacing, length, diameter, bed, checks, d)
     by_rating = _rating(request, n, checks, d)
-    circuit = _circuit(request, bed, d)
+    circuit = read_circuit(request, bed, d)
     if circuit["total"] > RULE_OF_THUMB_OHM:
         d.warn(None, f"the circuit resistance {fmt(circuit['total'], 4)} Ω is above the {RULE_OF_THUMB_OHM:g} Ω "
                      "often used to limit the rectifier voltage (ETL 1110-9-10)")
         d.cite("usace-etl-1110-9-10-1991")
-    rect = _rectifier(request, circuit["total"], d)
+    rect = read_rectifier(request, circuit["total"], d)
     if rect is None and request.get("anode_mass_kg") is not None:
         d.warn("current_A", "no design current given: the anode life is not computed")
     life = _life(request, rect["current_A"], n, d) if rect else None

@@ -40,7 +40,7 @@ BOUNDS = {
     "coating_efficiency": _span(0.0, 1.0, "", "a coating efficiency", " (below 1: 1 would need no current)"),
     "potential_V": _span(-3.0, 1.0, "V", "a potential"),
     "water_temp_C": _span(-2.0, 40.0, "°C", "a surface-water temperature"),
-    "anode_mass_kg": _span(1.0e-3, 1.0e5, "kg", "an anode mass"),
+    "anode_mass_kg": _span(1.0e-6, 1.0e5, "kg", "an anode mass", " (a platinum film weighs milligrams)"),
     "spacing_m": _span(1.0e-3, 1.0e4, "m", "a spacing"),
     "resistance_ohm": _span(1.0e-6, 1.0e7, "Ω", "a resistance"),
     "circuit_ohm": _span(0.0, 1.0e4, "Ω", "a resistance"),
@@ -49,6 +49,8 @@ BOUNDS = {
     "back_emf_V": _span(0.0, 20.0, "V", "a back voltage"),
     "margin": _span(0.0, 5.0, "", "a margin", " (0.25 adds 25 %)"),
     "factor": _span(1.0e-3, 100.0, "", "a factor"),
+    "tank_diameter_m": _span(1.0e-2, 200.0, "m", "a tank (or hoop) diameter"),
+    "current_per_length_A_per_m": _span(1.0e-5, 100.0, "A/m", "a wire anode's rated current per metre"),
     "constant_C": _span(1.0, 1.0e7, "mA·Ω·cm", "a constant"),
 }
 #: most anodes in one design [unitless]
