@@ -2,8 +2,11 @@
 
 Each check names its source beside it:
 
-- 49 CFR Part 192, Appendix D (US DOT PHMSA), Sections I.A(1) -0.85 V CSE, I.A(3) 100 mV
-  polarisation, I.B aluminium (read).
+- 49 CFR Part 192, Appendix D (US DOT PHMSA), Sections I.A(1) -0.85 V CSE (with the current
+  applied), I.A(3) 100 mV polarisation, I.B aluminium (read as reproduced in MIL-HDBK-1004/10
+  Appendix E, public copy).
+- UFC 3-570-06 (USACE/NAVFAC/AFCESA, 2003), 6-3.1.2 -850 mV polarised and 6-3.1.3 100 mV (read,
+  restating NACE RP0169).
 - ISO 15589-1:2015, Table 1 (on-land pipelines): -0.85 / -0.95 V CSE read in a secondary copy;
   the elevated-temperature rows and the -1.2 V limit from memory.
 - NACE SP0169-2013, Section 6.2.2: 100 mV polarisation (read).
@@ -65,11 +68,11 @@ def role(result, name):
 # ---------------------------------------------------------------- CP readings: limits inclusive
 
 def test_reading_on_the_protection_limit_is_protected():
-    # -0.85 V CSE: 49 CFR 192 App. D I.A(1); ISO 15589-1:2015 Table 1 (limit inclusive)
+    # -0.85 V CSE polarised: UFC 3-570-06 (2003) 6-3.1.2 (read); ISO 15589-1:2015 Table 1 (limit inclusive)
     r = cp(reading_V=-0.85)
     assert r["verdict"] == "protected" and r["conclusive"] is True
     c = role(r, "protection")
-    assert c["value_V"] == -0.85 and c["standard"] == "ISO 15589-1:2015" and c["clause"].startswith("Table 1")
+    assert c["value_V"] == -0.85 and c["standard"] == "UFC 3-570-06" and c["clause"] == "Chapter 6, 6-3.1.2"
     assert cp(reading_V=-0.8499)["verdict"] == "not protected"
 
 
@@ -155,10 +158,13 @@ def test_borderline_inside_a_documented_span():
 
 # ---------------------------------------------------------------- IR drop: on and instant-off
 
-def test_on_reading_that_meets_a_criterion_is_not_conclusive():
+def test_on_reading_that_meets_a_criterion_is_unconfirmed():
+    # an on reading includes the IR drop (49 CFR 192 App. D Section II): meeting the value of a criterion
+    # stated for the polarised potential shows nothing; the state is neither protected nor not protected
     r = cp(reading_V=-0.95, reading_kind="on")
-    assert r["verdict"] == "protected" and r["conclusive"] is False
-    assert "not conclusive" in r["verdict_label"] and "instant-off" in r["verdict_text"]
+    assert r["verdict"] == "unconfirmed" and r["conclusive"] is False
+    assert r["verdict_label"] == "unconfirmed (on reading, IR drop included)"
+    assert "instant-off" in r["verdict_text"] and not r["verdict_text"].lower().startswith("protected")
     assert "IR drop" in r["ir_drop"] and r["ir_drop"].startswith("Given: an on reading")
     assert r["instant_off_needed"] is True and role(r, "protection")["ir_free"] is True
 
@@ -356,7 +362,7 @@ def test_cli_cp_json():
 def test_cli_cp_text_and_bad_input():
     code, out, err = run_cli("cp", "-0.87", "--structure", "steel", "--setting", "soil-aerobic", "--electrode", "CSE",
                              "--kind", "on")
-    assert code == 0 and "verdict_label: protected (not conclusive: on reading)" in out and "caution:" in out
+    assert code == 0 and "verdict_label: unconfirmed (on reading, IR drop included)" in out and "caution:" in out
     code, out, err = run_cli("cp", "5", "--structure", "steel", "--setting", "soil-aerobic", "--electrode", "CSE",
                              "--kind", "instant-off")
     assert code == 2 and out == "" and len(err.strip().splitlines()) == 1 and "reading_V" in err
@@ -389,7 +395,7 @@ def _public_functions():
 def test_every_module_of_the_package_has_public_functions():
     assert {name.rsplit(".", 1)[0] for name, _ in _public_functions()} == {
         "calc.field.seawater", "calc.field.electrodes", "calc.field.measured", "calc.field.criteria",
-        "calc.field.protection", "calc.field.cpreading"}
+        "calc.field.protection", "calc.field.cpreading", "calc.field.cpwords", "calc.field.onreading"}
 
 
 # the docstrings of calc.field are checked with every other engine module (tests/test_cli_engine.py)

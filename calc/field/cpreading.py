@@ -1,22 +1,28 @@
 """One cathodic-protection reading judged against the criteria of the dataset.
 
 One structure-to-electrolyte potential of a cathodically protected structure against the
-potential criteria of ``data/cp_criteria.yaml`` (protected, not protected, over-protected;
-limits inclusive), each criterion assessed by :mod:`calc.field.protection`. The verdict says
-whether it is conclusive: an on reading includes the IR drop (see :mod:`calc.field.protection`).
+potential criteria of ``data/cp_criteria.yaml`` (protected, unconfirmed, not protected,
+over-protected; limits inclusive), each criterion assessed by :mod:`calc.field.protection` and
+:mod:`calc.field.onreading`. The verdict says whether it is conclusive: an on reading includes
+the IR drop, so one that meets the value of a criterion stated for the polarised potential is
+*unconfirmed* (:mod:`calc.field.cpwords`), unless a criterion that admits on readings is met
+with the IR drop considered. The readings of one test post travel together: an instant-off
+reading with the on reading beside it (the IR drop) and the native potential (the polarisation).
 """
 
 from dataclasses import dataclass
 
-from ..bounds import check
+from ..bounds import BOUNDS, check
 from ..dataset import current
 from ..derivation import fmt
 from ..errors import DataError, InputError
 from ..requests import read
 from ..series import EPS_V
 from . import protection as assess
+from .cpwords import UNITS, ir_text, verdict_label, verdict_text
 from .criteria import catalogue, criteria_for, lookup, name_of, reading_kind, settings_with_criteria
 from .electrodes import AGAGCL_SW, PLAUSIBLE_SHE_V, field_electrode, read_reading
+from .onreading import ir_method, ir_methods, on_criterion, post_readings
 
 CP_CAUTIONS = (
     "Safety-relevant: cathodic protection keeps pipelines, tanks and structures whose failure can hurt people "
@@ -29,7 +35,6 @@ CP_CAUTIONS = (
     "One reading is one point: coating defects, interference and telluric currents, and poorly placed electrodes "
     "are found only by a survey along the structure.",
 )
-VERDICT_WORDS = {"protected": "Protected", "not protected": "Not protected", "over-protected": "Over-protected"}
 
 
 @dataclass(frozen=True)
@@ -60,6 +65,35 @@ def _inputs(structure, setting, reading_V, electrode, kind, temp_C, polarisation
     return sid, sett, rkind, value, el, ts, pol, recs
 
 
+def _post_inputs(rkind, pol, post):
+    """The readings of the test post and the IR-drop choice, checked: (on_V, native_V, method, ir_mV, unit)."""
+    on_V, native_V, method, ir_mV, unit = (post.get(k) for k in ("on_V", "native_V", "ir_drop_method",
+                                                                  "ir_drop_mV", "unit"))
+    if unit not in UNITS:
+        raise InputError("unit", unit, "V or mV (the unit of the texts; the numbers of the result stay in V and mV)")
+    if on_V is not None:
+        if rkind == "on":
+            raise InputError("on_V", on_V, "an on reading beside an instant-off reading (with reading_kind on, "
+                                           "reading_V is the on reading)")
+        on_V = check("reading_V", on_V, "on_V")
+    if native_V is not None:
+        if pol is not None:
+            raise InputError("native_V", native_V, "the native potential or the polarisation shift, not both")
+        native_V = check("reading_V", native_V, "native_V")
+    method = ir_method(method)
+    subtracts = method is not None and ir_methods()[method]["subtract"]
+    if ir_mV is not None:
+        if not subtracts:
+            raise InputError("ir_drop_method", post.get("ir_drop_method"),
+                             "measured (an IR drop measured or calculated, subtracted from the reading) "
+                             "to use the IR drop given")
+        ir_mV = check("ir_drop_mV", ir_mV)
+    elif subtracts:
+        raise InputError("ir_drop_mV", None, "the size of the IR drop measured or calculated, "
+                                             + BOUNDS["ir_drop_mV"].allowed)
+    return on_V, native_V, method, ir_mV, unit
+
+
 def _by_kind(recs, sid, sett):
     """The criteria records by role: base and elevated-temperature protection, polarisation, limit, shift-on."""
     protect = [r for r in recs if r["kind"] == "protection"]
@@ -67,8 +101,9 @@ def _by_kind(recs, sid, sett):
               "temps": [r for r in protect if r.get("structure_temp_C")],
               "polarisation": [r for r in recs if r["kind"] == "polarisation"],
               "limit": [r for r in recs if r["kind"] == "limit"],
-              "shift-on": [r for r in recs if r["kind"] == "shift-on"]}
-    if len(groups["base"]) > 1 or len(groups["limit"]) > 1:
+              "shift-on": [r for r in recs if r["kind"] == "shift-on"],
+              "on": [r for r in recs if r["kind"] == "protection-on"]}
+    if len(groups["base"]) > 1 or len(groups["limit"]) > 1 or len(groups["on"]) > 1:
         raise DataError(f"cp_criteria: more than one base protection or limit record for {sid} in {sett}")
     return groups
 
@@ -83,19 +118,33 @@ def _need_a_criterion(criteria, where, polarisation_mV, structure_temp_C):
                      "a temperature at which a protection criterion applies to this structure and setting")
 
 
-def _assess(rd, groups, pol, names, polarisation_mV, structure_temp_C):
-    """Every criterion of the structure and setting against the reading: (criteria, protection, polarisation, limit)."""
+def _on_criterion(rd, groups, method, ir_mV, where):
+    """The criterion that admits on readings, where the structure and setting have one and it applies."""
+    recs = [r for r in groups["on"] if assess.within(rd.structure_temp_C, r.get("structure_temp_C"))]
+    if method is not None and not recs:
+        rd.d.warn("ir_drop_method", f"no criterion that admits on readings applies to {where}: the way the IR "
+                                    "drop was considered was not used")
+    if recs and method is not None and rd.kind != "on":
+        rd.d.warn("ir_drop_method", "the way the IR drop was considered was not used: the reading is instant-off")
+    return on_criterion(rd, recs[0], method, ir_mV) if recs else None
+
+
+def _assess(rd, groups, pol, names, polarisation_mV, structure_temp_C, method=None, ir_mV=None):
+    """Every criterion of the structure and setting against the reading:
+    (criteria, protection, polarisation, limit, on-criterion)."""
     where = f"{names[0].lower()} in {names[1].lower()}"
     criteria = []
     prot = assess.protection(rd, groups["base"][0], groups["temps"], names[1]) if groups["base"] else None
     criteria += [prot] if prot else []
+    on_info = _on_criterion(rd, groups, method, ir_mV, where)
+    criteria += [on_info] if on_info else []
     pols = [assess.polarisation(rd, r, pol) for r in groups["polarisation"]]
     criteria += pols
     pol_info = next((c for c in reversed(pols) if c["met"] is not None), None)
     if pol is not None and not pols:
         rd.d.warn("polarisation_mV", f"no polarisation criterion is stored for {where}: the polarisation given "
                                      "was not used")
-    if prot is None and pol_info is None:
+    if prot is None and pol_info is None and on_info is None:
         _need_a_criterion(criteria, where, polarisation_mV, structure_temp_C)
     lim = assess.limit(rd, groups["limit"][0]) if groups["limit"] else None
     if lim:
@@ -103,20 +152,25 @@ def _assess(rd, groups, pol, names, polarisation_mV, structure_temp_C):
     else:
         rd.d.warn(None, f"no negative (over-protection) limit is stored for {where}")
     criteria += [assess.not_checked(rd, r) for r in groups["shift-on"]]
-    return criteria, prot, pol_info, lim
+    return criteria, prot, pol_info, lim, on_info
 
 
-def _verdict(prot, pol_info, lim, implausible):
-    """The verdict and whether it is conclusive: beyond the limit first, then any criterion met."""
+def _verdict(prot, pol_info, lim, implausible, on_info=None):
+    """The verdict and whether it is conclusive: beyond the limit first, then a criterion met by a
+    reading it admits (protected), then one whose value an on reading meets (unconfirmed)."""
     prot_met = prot is not None and prot["met"]
     pol_met = pol_info is not None and pol_info["met"]
+    on_met = on_info is not None and on_info["met"] is True
+    on_value_only = on_info is not None and on_info["met"] is None and bool(on_info["value_met"])
     if lim is not None and lim["exceeded"]:
         verdict, conclusive = "over-protected", lim["conclusive"]
-    elif prot_met or pol_met:
-        verdict = "protected"
-        conclusive = bool(pol_met) or bool(prot_met and prot["conclusive"])
+    elif pol_met or on_met or (prot_met and prot["conclusive"]):
+        verdict, conclusive = "protected", True
+    elif prot_met or on_value_only:
+        verdict, conclusive = "unconfirmed", False
     else:
-        verdict, conclusive = "not protected", all(c["conclusive"] for c in (prot, pol_info) if c is not None)
+        verdict = "not protected"
+        conclusive = all(c["conclusive"] for c in (prot, pol_info, on_info) if c is not None and c["conclusive"] is not None)
     return verdict, conclusive and not implausible
 
 
@@ -133,37 +187,6 @@ def _used_warnings(d, used, el):
                                 "(e.g. -0.80 V Ag/AgCl seawater is taken as -0.85 V CSE): near a limit, measure with "
                                 f"a {c['electrode']} electrode")
             break
-
-
-def _ir_text(rkind, ir_needed):
-    """What the kind of reading means for the IR drop."""
-    if rkind != "on":
-        return ("Given: an instant-off reading, taken at the instant the protective current was interrupted, before "
-                "the structure depolarises. It is free of the IR drop of the interrupted current, but not of currents "
-                "that kept flowing (other rectifiers, bonded galvanic anodes, stray or telluric currents).")
-    ir = ("Given: an on reading, taken with the protective current flowing. It includes the IR drop: the voltage "
-          "lost by that current in the soil or water between the structure and the electrode, which makes the "
-          "reading more negative than the structure's polarised potential. ")
-    if not ir_needed:
-        return ir + "The criteria used here are stated for the on potential."
-    return ir + ("The criteria used here need the IR-free (polarised) potential: interrupt the current (switch the "
-                 "rectifier or disconnect the anodes) and read at that instant, before the structure depolarises "
-                 "(instant-off), or use a coupon. From an on reading a criterion that is not met is conclusive; one "
-                 "that is met is not, and a reading beyond the negative limit may be IR drop only.")
-
-
-def _verdict_text(verdict, conclusive, implausible, reasons):
-    """The verdict in words, with what it rests on (an implausible reading is never conclusive)."""
-    word, because = VERDICT_WORDS[verdict], " ".join(reasons)
-    if verdict == "protected" and not conclusive:
-        return (f"{word} on this on reading only, which does not demonstrate protection: the criterion needs an "
-                "instant-off reading. " + because)
-    if verdict == "over-protected" and not conclusive:
-        return (f"{word} on this on reading, which may be IR drop only: take an instant-off reading to see whether "
-                "the polarised potential is beyond the limit. " + because)
-    if implausible:
-        return f"{word} as read, but the reading is implausible (see the warnings). " + because
-    return f"{word}. " + because
 
 
 def _assumptions(ts, structure_temp_C, pol, el):
@@ -187,7 +210,7 @@ def _assumptions(ts, structure_temp_C, pol, el):
 
 
 def check_cp_reading(structure, setting, reading_V, electrode, kind, temp_C=None, polarisation_mV=None,
-                     structure_temp_C=None, salinity=None, chloride_mg_per_L=None):
+                     structure_temp_C=None, salinity=None, chloride_mg_per_L=None, **post):
     """Judge one structure-to-electrolyte potential against the CP criteria of the dataset.
 
     Args:
@@ -201,55 +224,76 @@ def check_cp_reading(structure, setting, reading_V, electrode, kind, temp_C=None
         structure_temp_C: temperature of the structure, default temp_C [°C]
         salinity: salinity of the water, for an Ag/AgCl seawater electrode [g/kg]
         chloride_mg_per_L: chloride instead of salinity [mg/L]
+        post: the other readings of the test post and choices, each optional: ``on_V`` (the on
+            reading beside an instant-off one) [V vs electrode], ``native_V`` (the native
+            potential, instead of polarisation_mV) [V vs electrode], ``ir_drop_method`` (how the
+            IR drop of an on reading was considered) [unitless], ``ir_drop_mV`` (the IR drop
+            subtracted, for ``measured``) [mV], ``unit`` (``V`` or ``mV``, of the texts) [unitless]
 
     Returns:
         a :class:`CPResult` (potentials in [V], shifts in [mV])
 
     References:
-        The criteria of data/cp_criteria.yaml with their standards and clauses (ISO 15589-1:2015
-        Table 1; NACE SP0169-2013 §6.2.2; 49 CFR 192 App. D; EN 12473:2014 Table 1; DNV-RP-B401;
-        ISO 15589-2:2012; MIL-HDBK-1004/10 §3.3.1.2); conversion by :mod:`calc.refelec`.
+        The criteria of data/cp_criteria.yaml with their standards and clauses (49 CFR 192 App. D
+        as reproduced in MIL-HDBK-1004/10 App. E; UFC 3-570-06 (2003) 6-3; ISO 15589-1:2015
+        Table 1; NACE SP0169-2013 §6.2.2; EN 12473:2014 Table 1; DNV-RP-B401; ISO 15589-2:2012;
+        MIL-HDBK-1004/10 §3.3.1); conversion by :mod:`calc.refelec`.
 
     >>> r = check_cp_reading("carbon-steel", "soil-aerobic", -0.85, "CSE", "instant-off", 25).to_dict()
     >>> r["verdict"], r["conclusive"]
     ('protected', True)
+    >>> check_cp_reading("carbon-steel", "soil-aerobic", -0.95, "CSE", "on", 25).to_dict()["verdict"]
+    'unconfirmed'
     """
     ds = current()
     sid, sett, rkind, value, el, ts, pol, recs = _inputs(structure, setting, reading_V, electrode, kind, temp_C,
                                                          polarisation_mV, structure_temp_C, salinity,
                                                          chloride_mg_per_L)
-    rd = assess.start_reading(ds, el, value, rkind, ts)
+    on_V, native_V, method, ir_mV, unit = _post_inputs(rkind, pol, post)
+    rd = assess.start_reading(ds, el, value, rkind, ts, unit)
     d, e_she = rd.d, rd.e_she
     implausible = e_she < PLAUSIBLE_SHE_V[0] - EPS_V
     names = (name_of("cp_structures", sid), name_of("cp_settings", sett))
-    criteria, prot, pol_info, lim = _assess(rd, _by_kind(recs, sid, sett), pol, names, polarisation_mV,
-                                            structure_temp_C)
-    verdict, conclusive = _verdict(prot, pol_info, lim, implausible)
+    pol, pol_from, ir_V = post_readings(rd, rkind, on_V, native_V, pol)
+    groups = _by_kind(recs, sid, sett)
+    criteria, prot, pol_info, lim, on_info = _assess(rd, groups, pol, names, polarisation_mV, structure_temp_C,
+                                                     method, ir_mV)
+    verdict, conclusive = _verdict(prot, pol_info, lim, implausible, on_info)
     used = [c for c in criteria if c.get("met") is not None or c["role"] == "limit"]
     _used_warnings(d, used, el)
     ir_needed = [c for c in used if c["ir_free"] and c["role"] in ("protection", "limit")]
-    reasons = [c["text"] for c in (prot, pol_info, lim) if c is not None and (c.get("met") is not None or c is lim)]
+    reasons = [c["text"] for c in (prot, on_info, pol_info, lim)
+               if c is not None and (c.get("met") is not None or c is lim or (c is on_info and c["value_met"]))]
     if temp_C is None:
         d.warn("temp_C", "temperature not given: 25 °C assumed for the electrode")
+    admits_on = on_info is not None and rkind == "on"
+    method_name = on_info["ir_drop_method_name"] if admits_on else None
     data = (
         ("structure", sid), ("structure_name", names[0]), ("setting", sett),
         ("setting_name", names[1]), ("reading_V", value), ("electrode", el.id), ("temp_C", el.temp_C),
         ("structure_temp_C", ts), ("reading_kind", rkind), ("polarisation_mV", pol),
         ("salinity", el.salinity), ("electrode_shift_V", round(el.shift_V, 6)), ("reading_V_SHE", round(e_she, 6)),
         ("verdict", verdict), ("conclusive", conclusive),
-        ("verdict_label", verdict if conclusive else f"{verdict} (not conclusive: {rkind} reading)"),
-        ("verdict_text", _verdict_text(verdict, conclusive, implausible, reasons)),
-        ("implausible", implausible), ("criteria", criteria), ("ir_drop", _ir_text(rkind, ir_needed)),
+        ("verdict_label", verdict_label(verdict, conclusive, rkind)),
+        ("verdict_text", verdict_text(verdict, conclusive, implausible, reasons, admits_on)),
+        ("implausible", implausible), ("criteria", criteria),
+        ("ir_drop", ir_text(rkind, ir_needed, admits_on, method_name)),
         ("instant_off_needed", bool(ir_needed)), ("assumptions", _assumptions(ts, structure_temp_C, pol, el)),
         ("cautions", list(CP_CAUTIONS)),
         ("steps", d.steps), ("warnings", d.warnings), ("sources", d.sources), ("data_version", ds.version),
+        ("polarisation_from", pol_from), ("native_V", native_V), ("on_V", on_V),
+        ("ir_drop_V", None if ir_V is None else round(ir_V, 6)), ("ir_drop_method", method),
+        ("ir_drop_mV", ir_mV), ("unit", unit),
     )
     return CPResult(data)
 
 
 #: request fields of ``cp``, in the order its messages list them
 CP_FIELDS = ("structure", "setting", "reading_V", "electrode", "temp_C", "reading_kind", "polarisation_mV",
-             "structure_temp_C", "salinity", "chloride_mg_per_L")
+             "structure_temp_C", "salinity", "chloride_mg_per_L", "on_V", "native_V", "ir_drop_method", "ir_drop_mV",
+             "unit")
+#: the optional fields of the test post and the choices, passed on by name
+POST_FIELDS = CP_FIELDS[10:]
 
 
 def _cp_required():
@@ -266,16 +310,20 @@ def cp_reading_entry(req):
 
     Request fields: ``structure``, ``setting``, ``reading_V`` [V], ``electrode``,
     ``reading_kind`` (``on`` or ``instant-off``); optional ``temp_C`` [°C, default 25],
-    ``polarisation_mV`` [mV], ``structure_temp_C`` [°C], ``salinity`` [g/kg] or
-    ``chloride_mg_per_L`` [mg/L].
+    ``polarisation_mV`` [mV] or ``native_V`` [V], ``structure_temp_C`` [°C], ``salinity`` [g/kg]
+    or ``chloride_mg_per_L`` [mg/L]; with an instant-off reading ``on_V`` [V]; with an on
+    reading ``ir_drop_method`` (``none``, ``measured``, ``history``, ``characteristics``,
+    ``evidence``) and, for ``measured``, ``ir_drop_mV`` [mV]; ``unit`` (``V`` or ``mV``) of the
+    texts.
 
     Args:
         req: the request dict [unitless]
 
     Returns:
-        dict: verdict (protected, not protected, over-protected), conclusive, verdict_text,
-        criteria (each with its standard, clause, value in [V], the reading on its electrode in
-        [V], whether it needs an instant-off value), ir_drop, assumptions, cautions, steps,
+        dict: verdict (protected, unconfirmed, not protected, over-protected), conclusive,
+        verdict_text, criteria (each with its standard, clause, value in [V], the reading on its
+        electrode in [V], margin_text, whether it needs an instant-off value), ir_drop,
+        polarisation_mV and polarisation_from, ir_drop_V, assumptions, cautions, steps,
         warnings, sources, data_version
 
     References:
@@ -290,4 +338,5 @@ def cp_reading_entry(req):
     read(req, "cp", _cp_required(), CP_FIELDS)
     return check_cp_reading(req["structure"], req["setting"], req["reading_V"], req["electrode"], req["reading_kind"],
                             req.get("temp_C"), req.get("polarisation_mV"), req.get("structure_temp_C"),
-                            req.get("salinity"), req.get("chloride_mg_per_L")).to_dict()
+                            req.get("salinity"), req.get("chloride_mg_per_L"),
+                            **{k: req[k] for k in POST_FIELDS if k in req}).to_dict()

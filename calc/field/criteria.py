@@ -10,7 +10,8 @@ from ..errors import DataError, InputError
 from ..requests import norm
 
 READING_KINDS = ("on", "instant-off")
-VERDICTS = ("protected", "not protected", "over-protected")
+#: the states of a judged reading (their words: calc.field.cpwords.STATES)
+VERDICTS = ("protected", "unconfirmed", "not protected", "over-protected")
 #: the two catalogues, each with plain words for one of its entries
 CATALOGUES = {"cp_structures": "a structure", "cp_settings": "a setting"}
 
@@ -178,18 +179,19 @@ def describe(ds, rec):
 
     Returns:
         dict (id, name, kind, standard, clause, source, confidence, provisional, ir_free,
-        electrode, note, also)
+        electrode, note, condition, also)
 
     References:
         data/cp_criteria.yaml (each record cites its standard and clause).
 
     >>> describe(current(), criteria_for("carbon-steel", "soil-aerobic")[0])["standard"]
-    'ISO 15589-1:2015'
+    'UFC 3-570-06'
     """
     return {"id": rec["id"], "name": rec.get("name", rec["id"]), "kind": rec["kind"],
             "standard": standard_name(ds, rec["source"]), "clause": rec.get("clause"), "source": rec["source"],
             "confidence": rec.get("confidence"), "provisional": bool(rec.get("provisional")),
             "ir_free": bool(rec.get("ir_free")), "electrode": rec.get("electrode"), "note": rec.get("note"),
+            "condition": rec.get("condition"),
             "also": [{"source": a["source"], "standard": standard_name(ds, a["source"]),
                       "clause": a.get("clause"), "confidence": a.get("confidence"), "note": a.get("note")}
                      for a in rec.get("also") or []]}

@@ -17,6 +17,7 @@ from dataclasses import dataclass, field
 
 from ..derivation import fmt
 from ..series import EPS_V
+from .cpwords import margin_text, potential_text, shift_text
 from .criteria import describe, standard_name
 from .electrodes import on_scale, plausibility, start_derivation
 
@@ -35,6 +36,8 @@ class Reading:
     e_she: float
     kind: str
     structure_temp_C: float
+    value_V: float = 0.0
+    unit: object = None  # the unit of the texts: V, mV or None (see calc.field.cpwords)
     scales: dict = field(default_factory=dict)
 
     def on(self, electrode_id):
@@ -62,7 +65,7 @@ class Reading:
         return f"{standard_name(self.ds, rec['source'])}, {rec['clause']}"
 
 
-def start_reading(ds, el, value_V, kind, structure_temp_C):
+def start_reading(ds, el, value_V, kind, structure_temp_C, unit=None):
     """A reading to judge: on the SHE scale, checked for plausibility, with its first steps.
 
     Args:
@@ -71,6 +74,7 @@ def start_reading(ds, el, value_V, kind, structure_temp_C):
         value_V: the reading as taken [V vs electrode]
         kind: ``on`` or ``instant-off`` [unitless]
         structure_temp_C: temperature of the structure [°C]
+        unit: the unit of the texts, ``V``, ``mV`` or None [unitless]
 
     Returns:
         a :class:`Reading` (``e_she`` in [V vs SHE])
@@ -89,7 +93,7 @@ def start_reading(ds, el, value_V, kind, structure_temp_C):
         d.warn(w["field"], w["message"])
     d.step("Reading vs SHE", f"E(SHE) = reading + E({el.id} vs SHE at {fmt(el.temp_C)} °C)",
            f"{fmt(value_V)} V + {fmt(el.E_V_SHE)} V", f"E = {fmt(e_she, 5)} V vs SHE")
-    return Reading(ds, d, el, e_she, kind, structure_temp_C)
+    return Reading(ds, d, el, e_she, kind, structure_temp_C, value_V, unit)
 
 
 def within(t, window):
@@ -156,10 +160,11 @@ def _elevated(rd, base, temps):
     return threshold, used
 
 
-def _borderline(rng, comma=""):
+def _borderline(rng, unit, comma=""):
     """The end of a criterion's text for a reading inside the span the documents give."""
-    return (f"; the documents give {fmt(min(rng))} to {fmt(max(rng))} V{comma} and the reading lies in that span: "
-            "borderline")
+    span = (f"{fmt(min(rng))} to {fmt(max(rng))} V" if unit != "mV" else
+            f"{fmt(min(rng) * 1000.0)} to {fmt(max(rng) * 1000.0)} mV")
+    return f"; the documents give {span}{comma} and the reading lies in that span: borderline"
 
 
 def _shown(rd, rec, role, value_V, ev, margin_V, outcome, decisive, borderline):
@@ -167,7 +172,7 @@ def _shown(rd, rec, role, value_V, ev, margin_V, outcome, decisive, borderline):
     criterion is met (or a limit exceeded): its IR drop alone may do that, so that is not conclusive."""
     info = describe(rd.ds, rec)
     info.update({"role": role, "value_V": value_V, "published_V": rec["potential_V"], "reading_V": round(ev, 6),
-                 "margin_V": round(margin_V, 6), **outcome,
+                 "margin_V": round(margin_V, 6), "margin_text": margin_text(role, margin_V, rd.unit), **outcome,
                  "conclusive": rd.kind == "instant-off" or not rec.get("ir_free") or not decisive,
                  "borderline": borderline, "range_V": rec.get("range_V")})
     return info
@@ -212,9 +217,9 @@ def protection(rd, base, temps, setting_name):
               f"protected when E ≤ criterion (limit inclusive); {rd.standard(base)}",
               f"{fmt(ev, 4)} V {'≤' if met else '>'} {fmt(threshold, 4)} V vs {base['electrode']}",
               "met" if met else "not met")
-    info["text"] = (f"{fmt(ev, 3)} V vs {base['electrode']} is {'at or below' if met else 'above'} the "
-                    f"{fmt(threshold, 3)} V of {rd.standard(base)}; the criterion {IR_WORDS[bool(base.get('ir_free'))]}"
-                    + (_borderline(rng, ",") if borderline else "") + ".")
+    info["text"] = (f"{potential_text(ev, rd.unit)} vs {base['electrode']} is {'at or below' if met else 'above'} the "
+                    f"{potential_text(threshold, rd.unit)} of {rd.standard(base)}; the criterion "
+                    f"{IR_WORDS[bool(base.get('ir_free'))]}" + (_borderline(rng, rd.unit, ",") if borderline else "") + ".")
     return info
 
 
@@ -260,8 +265,8 @@ def polarisation(rd, rec, pol):
     else:
         met = pol >= need_mV - 1e-6
         info.update({"met": met, "conclusive": True, "text": (
-            f"polarisation {fmt(pol)} mV is {'at least' if met else 'less than'} the {fmt(need_mV)} mV of "
-            f"{rd.standard(rec)}.")})
+            f"polarisation {shift_text(pol, rd.unit)} is {'at least' if met else 'less than'} the "
+            f"{shift_text(need_mV, rd.unit)} of {rd.standard(rec)}.")})
         rd.d.step(f"Polarisation criterion: {rec['name']}", "protected when the polarisation ≥ the shift (inclusive)",
                   f"{fmt(pol)} mV {'≥' if met else '<'} {fmt(need_mV)} mV", "met" if met else "not met")
     return info
@@ -298,8 +303,9 @@ def limit(rd, rec):
               f"over-protected when E < limit (a reading on the limit is within it); {rd.standard(rec)}",
               f"{fmt(ev, 4)} V {'<' if over else '≥'} {fmt(limit_v, 4)} V vs {rec['electrode']}",
               "beyond the limit" if over else "within the limit")
-    info["text"] = (f"{fmt(ev, 3)} V vs {rec['electrode']} is {'beyond' if over else 'within'} the "
-                    f"{fmt(limit_v, 3)} V limit of {rd.standard(rec)}" + (_borderline(rng) if borderline else "") + ".")
+    info["text"] = (f"{potential_text(ev, rd.unit)} vs {rec['electrode']} is {'beyond' if over else 'within'} the "
+                    f"{potential_text(limit_v, rd.unit)} limit of {rd.standard(rec)}"
+                    + (_borderline(rng, rd.unit) if borderline else "") + ".")
     return info
 
 

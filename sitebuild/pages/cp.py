@@ -22,9 +22,11 @@ def _value(page, r, electrodes):
         el_txt = page.a(el, f"electrodes.md#{electrode_anchor(el)}") if el in electrodes else Md.escape(el)
     else:
         el_txt = Md()
-    if kind in ("protection", "limit") and isnum(r.get("potential_V")):
-        sign = "≤" if kind == "protection" else "not below"
+    if kind in ("protection", "protection-on", "limit") and isnum(r.get("potential_V")):
+        sign = "not below" if kind == "limit" else "≤"
         value = Md(sign + " {} V vs {}").format(signed(r["potential_V"], 2), el_txt)
+        if kind == "protection-on":
+            value += Md("<br>with the current applied, IR drop considered")
     elif isnum(r.get("shift_V")):
         what = " shift, current on" if kind == "shift-on" else " polarisation"
         value = Md("≥ {} mV" + what).format(num(round(r["shift_V"] * 1000, 6)))
@@ -40,6 +42,17 @@ def _value(page, r, electrodes):
         if isinstance(ramp, list) and len(ramp) == 2:
             value += Md(", linear from ") + range_text(ramp, "°C")
     return value
+
+
+def _condition(r):
+    """The condition of a criterion that admits on readings and the ways its IR drop may be considered."""
+    if not r.get("condition"):
+        return Md()
+    ways = [m.get("name") for m in r.get("ir_drop_methods") or [] if isinstance(m, dict) and m.get("name")]
+    text = Md("Condition: {}").format(r["condition"].rstrip("."))
+    if ways:
+        text += Md(". The IR drop may be considered as: {}").format("; ".join(ways))
+    return text + Md(".")
 
 
 def _row(page, r, electrodes, settings):
@@ -65,10 +78,12 @@ def _row(page, r, electrodes, settings):
     row = [Md("{}{}{}<br>{}").format(page.span(anchor), page.strong(name), flags, page.code(rid)), where,
            _value(page, r, electrodes), Md("yes" if r.get("ir_free") else "no"), src, Md("<br>").join(also) or DASH]
     note = None
-    if r.get("note") or also_notes:
+    extra = _condition(r)
+    if r.get("note") or also_notes or extra:
         text = Md.escape(r["note"]) if r.get("note") else Md()
         if also_notes:
             text += (Md(" ") if text else Md()) + Md(" ").join(n.rstrip(".") + Md(".") for n in also_notes)
+        text += (Md(" ") if text else Md()) + extra if extra else Md()
         note = page.a(name, f"#{anchor}") + Md(": ") + text
     return row, note
 

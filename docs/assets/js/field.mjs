@@ -1,69 +1,23 @@
 // Site readings: two calculators over calc.field.
 //   measured: a joint judged from the two parts' potentials measured on site (entry "measured");
-//   cp:       one cathodic-protection reading against the published criteria (entry "cp").
+//   cp:       one cathodic-protection reading against the published criteria (entry "cp"), with
+//             the way the IR drop of an on reading was considered.
 // They share a page, so their field ids and URL parameters carry a prefix of their own, and each
-// writes only its own parameters. The CP pieces are shared with the survey log (survey.mjs).
+// writes only its own parameters. The CP pieces shared with the survey log are in cpview.mjs.
+import {
+  AGAGCL_SW, KIND_OPTIONS, NOT_CONSIDERED, cpResultNodes, electrodeOptions, fillSelect, irOptions, irSubtracts,
+  onCriterion, settingOptions, structureOptions,
+} from "./cpview.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import {
   allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
   known, materialOptions, numberInput, readInto, select, signed, sourceLink, sourcesLine, verdictBadge, warningsList,
 } from "./ui.mjs";
 
-// Names of the structures and settings (data/cp_structures.yaml, cp_settings.yaml); a test keeps
-// the two in step.
-export const STRUCTURE_NAMES = {
-  "carbon-steel": "Carbon steel (C-Mn and low-alloy, yield strength up to 550 MPa)",
-  "high-strength-steel": "High-strength steel (specified minimum yield strength above 550 MPa)",
-  "stainless-pren-40": "Austenitic stainless steel, PREN 40 or more",
-  "stainless-pren-below-40": "Austenitic stainless steel, PREN below 40",
-  "copper-alloys": "Copper and copper alloys without aluminium",
-  "aluminium": "Aluminium and aluminium alloys",
-  "galvanized-steel": "Galvanized (zinc-coated) steel",
-};
-export const SETTING_NAMES = {
-  "soil-aerobic": "Buried, aerobic soil, resistivity below 100 Ω·m",
-  "soil-anaerobic": "Buried, anaerobic soil with sulfate-reducing bacteria",
-  "soil-aerated-100-1000": "Buried, aerated sandy soil, 100 to 1000 Ω·m",
-  "soil-aerated-above-1000": "Buried, aerated soil, 1000 Ω·m or more",
-  "seawater-aerobic": "Immersed in aerobic seawater",
-  "seawater-anaerobic": "In seawater sediment, anaerobic (sulfate-reducing bacteria)",
-};
-export const AGAGCL_SW = "Ag/AgCl seawater";
-export const CP_SYMBOL = { "protected": "✓", "not protected": "✗", "over-protected": "⚠" };
-
-// Field electrodes: every electrode of the dataset (RHE is not one).
-export function electrodeOptions(ds) {
-  return ds.reference_electrodes.map((r) => ({ value: r.id, label: r.id + " (" + signed(r.E_V_SHE, 4) + " V vs SHE at 25 °C)" }));
-}
-
-// Structures that have criteria, and the settings that have criteria for one structure.
-export function structureOptions(ds) {
-  const seen = [];
-  for (const r of ds.cp_criteria || []) if (!seen.includes(r.structure)) seen.push(r.structure);
-  return seen.map((id) => ({ value: id, label: STRUCTURE_NAMES[id] || id }));
-}
-
-export function settingOptions(ds, structure) {
-  const seen = [];
-  for (const r of ds.cp_criteria || []) {
-    if (r.structure !== structure || r.kind === "shift-on") continue;
-    for (const s of r.settings || []) if (!seen.includes(s)) seen.push(s);
-  }
-  const order = Object.keys(SETTING_NAMES);
-  seen.sort((a, b) => order.indexOf(a) - order.indexOf(b));
-  return seen.map((id) => ({ value: id, label: SETTING_NAMES[id] || id }));
-}
-
-export function fillSelect(sel, options, value) {
-  sel.replaceChildren(...options.map((o) => h("option", { value: o.value, text: o.label })));
-  if (options.some((o) => o.value === value)) sel.value = value;
-  return sel.value;
-}
-
-export function cpBadge(verdict, conclusive) {
-  return h("span", { class: "cw-verdict cw-cp cw-cp-" + verdict.replace(/\s+/g, "-") + (conclusive === false ? " cw-cp-open" : ""), "data-verdict": verdict },
-    h("span", { class: "cw-v-symbol", "aria-hidden": "true", text: CP_SYMBOL[verdict] || "?" }), " ", verdict,
-    conclusive === false ? h("span", { class: "cw-cp-open-note", text: " (not conclusive)" }) : null);
+// A margin of the measured difference worded as what it is (margin = allowable − ΔE [V]).
+function allowanceMargin(m) {
+  if (Math.abs(m) < 0.0005) return "on the allowable difference";
+  return fmt(Math.abs(m), 3) + " V " + (m > 0 ? "inside the allowable difference" : "beyond the allowable difference");
 }
 
 // URL state of one calculator on a shared page: only the keys with its prefix are written.
@@ -151,7 +105,7 @@ export async function measured(root) {
       rows.map(([k, v]) => h("tr", {}, h("th", { text: k }), h("td", { text: v }))),
       h("tr", {}, h("th", { text: "Measured difference ΔE" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
       h("tr", {}, h("th", { text: "Allowable ΔE in " + r.env_name }), h("td", {}, fmt(r.allowable_V, 2) + " V ", r.allowable_source ? sourceLink(r.allowable_source) : null)),
-      h("tr", {}, h("th", { text: "Margin" }), h("td", { text: signed(r.margin_V, 3) + " V" }))));
+      h("tr", {}, h("th", { text: "Margin" }), h("td", { "data-cw-value": "margin_V", text: allowanceMargin(r.margin_V) }))));
     const pubBox = pub ? h("section", { class: "cw-published", "aria-label": "Published-series judgement" },
       h("h3", { text: "Beside it: the published galvanic series" }),
       h("p", {}, verdictBadge(pub.verdict), " ", pub.verdict_text),
@@ -172,38 +126,7 @@ export async function measured(root) {
 // CP reading.
 
 // Demo scenario of our own: an instant-off reading at a test post on a buried steel water main.
-const CP_START = { st: "carbon-steel", set: "soil-aerobic", v: "-0.870", el: "CSE", k: "instant-off", t: "12", tst: "", p: "", s: "" };
-
-export const KIND_OPTIONS = [
-  { value: "instant-off", label: "instant-off (current just interrupted)" },
-  { value: "on", label: "on (protective current flowing)" },
-];
-
-// Render one CP judgement (shared with the survey log).
-export function cpResultNodes(r) {
-  const rows = (r.criteria || []).map((c) => {
-    let value = "", reading = "", result = "";
-    if (c.role === "protection") { value = "≤ " + signed(c.value_V, 3) + " V vs " + c.electrode; reading = signed(c.reading_V, 3) + " V"; result = c.met ? "met" : "not met"; }
-    else if (c.role === "limit") { value = "not below " + signed(c.value_V, 3) + " V vs " + c.electrode; reading = signed(c.reading_V, 3) + " V"; result = c.exceeded ? "beyond the limit" : "within the limit"; }
-    else if (c.role === "polarisation") { value = "≥ " + fmt(c.value_mV, 0) + " mV"; reading = c.given_mV === null || c.given_mV === undefined ? "not given" : fmt(c.given_mV, 0) + " mV"; result = c.met === null ? (c.applies ? "not checked" : "does not apply") : (c.met ? "met" : "not met"); }
-    else { value = "≥ " + fmt(c.value_mV, 0) + " mV (current on)"; reading = "—"; result = "not checked"; }
-    if (c.borderline) result += " (borderline)";
-    if (c.conclusive === false) result += ", not conclusive";
-    return h("tr", { "data-criterion": c.id },
-      h("td", {}, h("strong", { text: c.name }), c.provisional ? h("span", { class: "cw-badge cw-badge-prov", text: "provisional" }) : null),
-      h("td", {}, c.standard + ", " + c.clause + " ", sourceLink(c.source), c.confidence === "recalled" ? h("span", { class: "cw-recalled-tag", text: " (recalled)" }) : null),
-      h("td", { text: value }), h("td", { text: reading }), h("td", { text: c.ir_free ? "instant-off" : "on" }), h("td", { class: "cw-crit-result", text: result }));
-  });
-  return [
-    h("p", { class: "cw-big" }, cpBadge(r.verdict, r.conclusive)),
-    h("p", { class: "cw-direction", text: r.verdict_text }),
-    h("p", { class: "cw-ir", text: r.ir_drop }),
-    h("div", { class: "cw-matrix-wrap" }, h("table", { class: "cw-compare cw-criteria" },
-      h("thead", {}, h("tr", {}, ["Criterion", "Standard and clause", "Value", "Your reading on its electrode", "Needs", "Result"].map((t) => h("th", { text: t })))),
-      h("tbody", {}, rows))),
-    warningsList(r.warnings),
-  ];
-}
+const CP_START = { st: "carbon-steel", set: "soil-aerobic", v: "-0.870", el: "CSE", k: "instant-off", t: "12", tst: "", p: "", s: "", ir: NOT_CONSIDERED, irv: "" };
 
 export async function cp(root) {
   const { ui, ds, sp } = await begin(root, "CP reading", "cp");
@@ -211,21 +134,32 @@ export async function cp(root) {
   const get = (k) => url.get(k) ?? CP_START[k];
   const elIds = new Set(ds.reference_electrodes.map((r) => r.id));
   const stOpts = structureOptions(ds);
+  const irOpts = irOptions(ds);
   const stField = field("cw-c-st", "Structure", select(stOpts, known(new Set(stOpts.map((o) => o.value)), get("st"), CP_START.st)));
   const setField = field("cw-c-set", "Setting", select([], ""));
   fillSelect(setField.control, settingOptions(ds, stField.control.value), get("set"));
   const vField = field("cw-c-v", "Reading (V)", numberInput(get("v")), "structure-to-electrolyte potential as read, e.g. −0.870");
   const elField = field("cw-c-el", "Reference electrode", select(electrodeOptions(ds), known(elIds, get("el"), CP_START.el)));
   const kField = field("cw-c-k", "Reading taken", select(KIND_OPTIONS, known(new Set(KIND_OPTIONS.map((o) => o.value)), get("k"), CP_START.k)));
+  const irField = field("cw-c-ir", "IR drop of the on reading", select(irOpts, known(new Set(irOpts.map((o) => o.value)), get("ir"), CP_START.ir)),
+    "how it was considered: the −0.85 V criterion with the current applied counts only then");
+  const irvField = field("cw-c-irv", "IR drop subtracted (mV)", numberInput(get("irv")), hint(sp, "ir_drop_mV", "its size, measured or calculated"));
   const tField = field("cw-c-t", "Electrode temperature (°C)", numberInput(get("t")), hint(sp, "temp_C"));
   const tsField = field("cw-c-tst", "Structure temperature (°C, optional)", numberInput(get("tst")), "empty: the electrode's; matters above 40 °C");
   const pField = field("cw-c-p", "Polarisation shift (mV, optional)", numberInput(get("p")), "instant-off minus depolarised potential, for the 100 mV criterion");
   const sField = field("cw-c-s", "Salinity (g/kg)", numberInput(get("s")), "Ag/AgCl seawater electrode in brackish water; empty for seawater (35)");
   ui.formBox.append(h("div", { class: "cw-row" }, stField.el, setField.el),
     h("div", { class: "cw-row" }, vField.el, elField.el, kField.el),
+    h("div", { class: "cw-row" }, irField.el, irvField.el),
     h("div", { class: "cw-row" }, tField.el, tsField.el, pField.el, sField.el));
+  // the IR-drop choice shows for an on reading where a criterion admits on readings
+  function showIr() {
+    irField.el.hidden = kField.control.value !== "on" || !onCriterion(ds, stField.control.value, setField.control.value);
+    irvField.el.hidden = irField.el.hidden || !irSubtracts(ds, irField.control.value);
+  }
   function collect() {
     let bad = false;
+    showIr();
     const req = { structure: stField.control.value, setting: setField.control.value, electrode: elField.control.value, reading_kind: kField.control.value };
     bad = readInto(vField, req, "reading_V", allowed(sp, "reading_V", "a reading in volts")) || bad;
     bad = readInto(tField, req, "temp_C", allowed(sp, "temp_C", "a temperature")) || bad;
@@ -233,19 +167,25 @@ export async function cp(root) {
       if (f.control.value.trim() === "") { f.setError(""); continue; }
       bad = readInto(f, req, key, allowed(sp, key, noun)) || bad;
     }
+    if (!irField.el.hidden && irField.control.value !== NOT_CONSIDERED) req.ir_drop_method = irField.control.value;
+    if (!irvField.el.hidden) bad = readInto(irvField, req, "ir_drop_mV", allowed(sp, "ir_drop_mV", "an IR drop in mV")) || bad;
+    else irvField.setError("");
     sField.el.hidden = req.electrode !== AGAGCL_SW;
     if (!sField.el.hidden && sField.control.value.trim() !== "") {
       bad = readInto(sField, req, "salinity", allowed(sp, "salinity", "a salinity")) || bad;
     } else sField.setError("");
     url.write([["st", req.structure], ["set", req.setting], ["v", vField.control.value.trim()], ["el", req.electrode], ["k", req.reading_kind],
-      ["t", tField.control.value.trim()], ["tst", tsField.control.value.trim()], ["p", pField.control.value.trim()], ["s", sField.el.hidden ? "" : sField.control.value.trim()]]);
+      ["t", tField.control.value.trim()], ["tst", tsField.control.value.trim()], ["p", pField.control.value.trim()], ["s", sField.el.hidden ? "" : sField.control.value.trim()],
+      ["ir", irField.el.hidden || irField.control.value === NOT_CONSIDERED ? "" : irField.control.value], ["irv", irvField.el.hidden ? "" : irvField.control.value.trim()]]);
     return { req, bad };
   }
   const fieldFor = fieldMap({ structure: stField, setting: setField, reading_V: vField, electrode: elField, reading_kind: kField,
-    temp_C: tField, structure_temp_C: tsField, polarisation_mV: pField, salinity: sField, chloride_mg_per_L: sField });
+    temp_C: tField, structure_temp_C: tsField, polarisation_mV: pField, salinity: sField, chloride_mg_per_L: sField,
+    ir_drop_method: irField, ir_drop_mV: irvField });
   function render(r) {
     fill(ui.result, ...cpResultNodes(r), assumptionsBox(r.assumptions), derivation(r.steps), cautionsBox(r.cautions), sourcesLine(r.sources, r.data_version));
   }
   stField.control.addEventListener("change", () => fillSelect(setField.control, settingOptions(ds, stField.control.value), setField.control.value));
+  showIr();
   bindForm(ui, runner(ui, "cp", render, fieldFor), collect);
 }
