@@ -41,10 +41,26 @@ BOUNDS = {
     "chloride_mg_per_L": Bound(0.0, 25000.0, True, "mg/L", "a chloride content above 0 and up to 25000 mg/L",
                                "above 0, up to 25000 mg/L"),
     "polarisation_mV": Bound(0.0, 2000.0, False, "mV", "a polarisation shift from 0 to 2000 mV", "0 to 2000 mV, or empty"),
+    # the size of an IR drop subtracted from an on reading (cp): beyond 5 V the on reading says little (common practice)
+    "ir_drop_mV": Bound(0.0, 5000.0, False, "mV", "an IR drop from 0 to 5000 mV (its size, a positive number)",
+                        "0 to 5000 mV, its size"),
     "area_ratio": Bound(0.0, 1.0e6, True, "", "a cathode-to-anode wetted-area ratio, a finite number above 0 and at most 1e+06",
                         "above 0; empty for equal areas"),
     "current_density_uA_per_cm2": Bound(0.0, 1.0e6, False, "µA/cm²", "a current density from 0 to 1e+06 µA/cm²",
                                         "0 to 1e+06 µA/cm²"),
+    # service conditions of a joint (issue 15): 30 m/s is beyond ship hulls and pipe flows (common practice)
+    "velocity_m_s": Bound(0.0, 30.0, False, "m/s", "a flow velocity from 0 to 30 m/s", "0 (still) to 30 m/s"),
+    "diameter_m": Bound(0.0, 10.0, True, "m", "a pipe diameter above 0 and up to 10 m", "above 0, up to 10 m"),
+    "length_m": Bound(0.0, 1000.0, True, "m", "a surface length in the flow direction above 0 and up to 1000 m",
+                      "above 0, up to 1000 m"),
+    "still_layer_m": Bound(1.0e-5, 0.02, False, "m", "a still-water diffusion layer from 1e-05 to 0.02 m",
+                           "1e-05 to 0.02 m"),
+    # seawater is about 5 S/m and 20 S/m beyond any natural water; 1e-4 S/m (10 kΩ·m) is purer than rain (common practice)
+    "conductivity_S_per_m": Bound(1.0e-4, 20.0, False, "S/m", "an electrolyte conductivity from 0.0001 to 20 S/m",
+                                  "0.0001 to 20 S/m (seawater about 5, fresh water 0.005 to 0.1)"),
+    # a wetted anode from 1 mm² to 1e8 cm² (10 000 m²)
+    "anode_area_cm2": Bound(0.01, 1.0e8, False, "cm²", "an anode wetted area from 0.01 to 1e+08 cm²",
+                            "0.01 to 1e+08 cm², or empty for no IR term"),
 }
 
 

@@ -18,7 +18,7 @@ from .requests import norm as _norm
 
 KINDS = ("half_reactions", "reference_electrodes", "materials", "environments", "ions", "sources", "cp_criteria",
          "cp_structures", "cp_settings", "cp_anode_alloys", "cp_anode_types", "cp_coatings", "cp_current_densities",
-         "cp_design_tables", "gibbs_energies")
+         "cp_design_tables", "gibbs_energies", "polarization", "service_defaults")
 _BUNDLE_NAME = "dataset.json"
 #: the bundle's layout; a bundle written by other bundling code is refused (bump on a change)
 BUNDLE_FORMAT = 2

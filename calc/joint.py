@@ -1,23 +1,27 @@
 """Dissimilar-metal joints in a named environment: the judgement of one joint.
 
 Which part is the anode, how far apart the two metals sit, whether that is within what the
-environment allows (the positions and the tier rule of :mod:`calc.series`), what the wetted-area
-ratio does to the attack, a screening rate, and what to tell the user (:mod:`calc.advice`).
-
-Area effect (catchment principle, common practice): the cathode collects its oxygen-limited
-current density i_c over its whole wetted area, and all of that current leaves through the
-anode, so i_a = i_c · A_c/A_a; i_a is turned into a rate by ASTM G102 (:mod:`calc.rate`).
+environment allows (the positions and the tier rule of :mod:`calc.series`: the quick first look),
+what the wetted-area ratio does to the attack, the upper-bound screen i_a = i_L·(1 + A_c/A_a)
+(:mod:`calc.screen`), and what to tell the user (:mod:`calc.advice`). At the service conditions
+(:mod:`calc.service`, the environment's defaults for what is not stated) the joint is also judged
+by mixed-potential theory with the dataset's polarization parameters (:mod:`calc.jointservice`):
+each part's state and passivity, the couple potential, each part's attack and its change from
+uncoupled corrosion, the Evans diagram, and the effect of each condition in words.
 """
 
 from dataclasses import dataclass
 
 from . import rate as g102
+from . import service as svc
 from .advice import CAUTIONS, alternatives, basis_warnings, mitigations, verdict_text, volts
 from .bounds import BOUNDS
 from .dataset import current
 from .derivation import Derivation
 from .errors import InputError
+from .jointservice import service_part
 from .requests import read
+from .screen import screen
 from .series import EPS_V, TIER_MEANING, basis_of, judge_pair, material_on, position, states
 
 #: area ratios outside [AREA_LOW, AREA_HIGH] get a warning [unitless]
@@ -58,85 +62,6 @@ def _confidence_warnings(positions, basis, names):
     what = "position in the galvanic series" if basis.kind == "galvanic-series" else "anodic index"
     return [{"field": "material", "message": f"{names[p.material_id]}: its {what} is recalled, not re-read in "
              "its source"} for p in positions if p.confidence == "recalled"]
-
-
-# --------------------------------------------------------------------------------------------
-# the screening rate
-
-
-def anode_current_density(cathodic_uA_per_cm2, area_ratio):
-    """Current density on the anode when the cathode's whole current leaves through it.
-
-    i_a = i_c · A_c/A_a (catchment principle).
-
-    Args:
-        cathodic_uA_per_cm2: oxygen-limited current density the cathode collects [µA/cm²]
-        area_ratio: wetted area of the cathode over that of the anode [unitless]
-
-    Returns:
-        i_a [µA/cm²]
-
-    References:
-        Catchment-area principle of galvanic corrosion, common practice (the cathode's collected
-        current all leaves through the anode).
-
-    >>> anode_current_density(20.0, 10.0)
-    200.0
-    """
-    return cathodic_uA_per_cm2 * area_ratio
-
-
-def _no_rate_reason(env, basis, primary):
-    """Why no screening rate is estimated for this joint, or None."""
-    if primary.anode is None:
-        return "no anode: the two sit at the same nominal potential"
-    if not env.get("cathodic_current_density_uA_per_cm2"):
-        return (f"{basis.env_name} has no cathodic current density in the dataset (in air the wetted film, not "
-                "the metal, limits the current), so no rate is estimated")
-    if primary.tier == "matched":
-        return ("the difference is within the negligible band: the catchment estimate, which lets the cathode "
-                "run at its full oxygen-limited current, would grossly overstate the attack")
-    return None
-
-
-def _rate(ds, env, basis, primary, area_ratio, names, rec_by_id):
-    """Catchment-area screening rate of the anode, or (None, reason)."""
-    reason = _no_rate_reason(env, basis, primary)
-    if reason:
-        return None, reason
-    try:
-        fd = g102.material_faraday_data(rec_by_id[primary.anode], field_name="anode")
-    except InputError as exc:
-        return None, f"no Faraday rate for {names[primary.anode]}: {exc.hint or exc.allowed}"
-    ic = env["cathodic_current_density_uA_per_cm2"]
-    lo, hi = float(min(ic)), float(max(ic))
-    ia_lo, ia_hi = anode_current_density(lo, area_ratio), anode_current_density(hi, area_ratio)
-    ew, rho = fd.equivalent_weight_g, fd.density_g_cm3
-    r_lo, r_hi = g102.corrosion_rate(ia_lo, ew, rho), g102.corrosion_rate(ia_hi, ew, rho)
-    d = Derivation()
-    d.step("Anode current density (catchment area)", "i_a = i_c × A_c/A_a",
-           f"i_a = [{lo:g}, {hi:g}] µA/cm² × {area_ratio:g}", f"i_a = [{ia_lo:.4g}, {ia_hi:.4g}] µA/cm²")
-    d.step("Screening rate of the anode (ASTM G102 Eq. 1)", "CR = K1·i_a·EW/ρ, K1 = 3.27e-3 mm·g/(µA·cm·y)",
-           f"CR = 3.27e-3 × [{ia_lo:.4g}, {ia_hi:.4g}] × {ew:.4g} / {rho:g}",
-           f"CR = [{r_lo.penetration_mm_per_year:.3g}, {r_hi.penetration_mm_per_year:.3g}] mm/y")
-    d.step("Mass loss of the anode (ASTM G102 Eq. 2)", "MR = K2·i_a·EW, K2 = 8.954e-3 g·cm²/(µA·m²·d)",
-           f"MR = 8.954e-3 × [{ia_lo:.4g}, {ia_hi:.4g}] × {ew:.4g}",
-           f"MR = [{r_lo.mass_loss_g_per_m2_day:.3g}, {r_hi.mass_loss_g_per_m2_day:.3g}] g/(m²·d)")
-    return {
-        "kind": "screening estimate",
-        "anode": primary.anode,
-        "area_ratio": area_ratio,
-        "cathodic_current_density_uA_per_cm2": [lo, hi],
-        "anode_current_density_uA_per_cm2": [_sig(ia_lo), _sig(ia_hi)],
-        "penetration_mm_per_year": [_sig(r_lo.penetration_mm_per_year), _sig(r_hi.penetration_mm_per_year)],
-        "mass_loss_g_per_m2_day": [_sig(r_lo.mass_loss_g_per_m2_day), _sig(r_hi.mass_loss_g_per_m2_day)],
-        "equivalent_weight_g": ew,
-        "density_g_cm3": rho,
-        "note": "the galvanic part only: the anode's own free corrosion is not included",
-        "steps": list(fd.steps) + d.steps,
-        "sources": [s for s in (env.get("cathodic_current_density_source"),) + fd.sources if s],
-        "warnings": list(fd.warnings),
-    }, None
 
 
 # --------------------------------------------------------------------------------------------
@@ -197,10 +122,12 @@ def _steps(basis, pos_a, pos_b, j, names):
     return d.steps
 
 
-def _assumptions(basis, env, ratio, ratio_given, rate, anode_rec, n_combos):
+def _assumptions(basis, env, ratio, ratio_given, rate, anode_rec, n_combos, assessment):
     """What the judgement and the screening rate take for granted, in plain words."""
     out = [
-        "screening estimate from published potentials: no polarisation curves, no electrolyte resistance",
+        "the series verdict is a quick first look from published potentials: no polarisation curves, no "
+        "electrolyte resistance" + ("; the mixed-potential judgement at the service conditions goes further"
+                                    if assessment else ""),
         ("nominal potential = mid-point of each published range; the range spread gives best and worst cases"
          if basis.kind == "galvanic-series" else "one anodic-index value per metal group; no spread is published"),
         "the limit is inclusive: ΔE equal to the allowable passes",
@@ -212,23 +139,23 @@ def _assumptions(basis, env, ratio, ratio_given, rate, anode_rec, n_combos):
                else "area_ratio not given: equal wetted areas assumed (1)")
     if rate is not None:
         out += [
-            "catchment area: the cathode takes its whole oxygen-limited current density from the environment "
-            "and all of that current leaves through the anode (i_a = i_c × A_c/A_a)",
+            "upper-bound screen: both parts' cathodic reactions run at the O2 diffusion limit i_L and all of the "
+            "cathode's current leaves through the anode, which also carries its own (i_a = i_L × (1 + A_c/A_a))",
             "the anode corrodes uniformly over its wetted area (ASTM G102); the attack is in fact concentrated next "
             "to the joint",
-            "the anode's own free corrosion is not included",
         ]
-        confidence = env.get("cathodic_current_density_confidence")
-        if confidence in ("recalled", "computed"):
-            out.append(f"the cathodic current density of {basis.env_name} is provisional ({confidence}): the rate is "
-                       "good to its order of magnitude at best")
+        if rate["limiting_current_from"] == "environment range":
+            confidence = env.get("cathodic_current_density_confidence")
+            if confidence in ("recalled", "computed"):
+                out.append(f"the cathodic current density of {basis.env_name} is provisional ({confidence}): the rate "
+                           "is good to its order of magnitude at best")
         if anode_rec.get("state") == "passive":
             out.append("the anode is a passive alloy: its current may go into its film or concentrate at a "
                        "crevice or pit rather than spread evenly")
     if n_combos > 1:
         out.append("every passive/active state of the parts was compared; the verdict is lowered to guarded "
                    "when another state fails")
-    return out
+    return out + list((assessment or {}).get("assumptions", []))
 
 
 def _passive_drop(ds, recs, basis):
@@ -238,13 +165,14 @@ def _passive_drop(ds, recs, basis):
     return max(drops) if drops else None
 
 
-def _sources(used, basis, env, rate, ds):
-    """The source ids of the positions, the limits and the rate, each once."""
+def _sources(used, basis, env, rate, ds, extra=()):
+    """The source ids of the positions, the limits, the rate and the service judgement, each once."""
     out = [p.source for p in used if p is not None and p.source]
     out += [s for s in (basis.allowable_source, env.get("negligible_source")) if s]
     if rate is not None:
-        out += rate["sources"] + (["astm-g102"] if ds.source("astm-g102") else [])
-    return list(dict.fromkeys(out))
+        out += [s for s in rate["sources"] if ds.source(s) is not None]
+        out += ["astm-g102"] if ds.source("astm-g102") else []
+    return list(dict.fromkeys(out + [s for s in extra if s]))
 
 
 def _area_effect(primary, ratio):
@@ -275,21 +203,23 @@ class JointResult:
         return _plain(dict(self.data))
 
 
-def judge_joint(a, b, env, area_ratio=None):
-    """Judge a joint of two materials in a named environment.
+def judge_joint(a, b, env, area_ratio=None, service=None):
+    """Judge a joint of two materials in a named environment, at its service conditions.
 
     Args:
         a: first material: id, alias or UNS number [unitless]
         b: second material: id, alias or UNS number [unitless]
         env: environment id or alias [unitless]
         area_ratio: wetted area of the cathode over that of the anode; None assumes 1 [unitless]
+        service: stated service conditions (:data:`calc.service.SERVICE_FIELDS`), None: the defaults [°C, g/kg, m/s]
 
     Returns:
         a :class:`JointResult` (potentials in [V], rates in [mm/y] and [g/(m²·d)])
 
     References:
         ASTM G82-98 (R2014) §5-6 and Fig. 1 (galvanic series in flowing seawater, after LaQue 1975);
-        legacy anodic-index table; ASTM G102-89 (R2015) Eqs. (1)-(2) for the rate.
+        legacy anodic-index table; ASTM G102-89 (R2015) Eqs. (1)-(2) for the rate; Mansfeld,
+        Corrosion 27 (1971) 436 (the upper-bound screen); :mod:`calc.jointservice`.
 
     >>> r = judge_joint("mild steel", "stainless-316-passive", "seawater-flowing").to_dict()
     >>> (r["anode"], r["verdict"])
@@ -311,10 +241,14 @@ def judge_joint(a, b, env, area_ratio=None):
     used = [position(rec_by_id[i], basis) for i in dict.fromkeys(ids)]
     warnings += basis_warnings(basis) + _confidence_warnings(used, basis, names)
     steps = _steps(basis, pos_a, pos_b, j, names)
-    rate, rate_reason = _rate(ds, envrec, basis, primary, ratio, names, rec_by_id)
+    part = service_part(ds, service or {}, envrec, basis, rec_by_id, rec_a, rec_b, primary, ratio)
+    steps += list(part.steps)
+    warnings += list(part.warnings)
+    rate, rate_reason = screen(envrec, basis, primary, ratio, names, rec_by_id, part.service)
     if rate is not None:
         steps += rate["steps"]
         warnings += rate["warnings"]
+    extra = dict(part.keys)
     anode_rec = rec_by_id.get(primary.anode)
     alts = [alternatives(ds, basis, rec_b, rec_a, names), alternatives(ds, basis, rec_a, rec_b, names)]
     advice = mitigations(j, basis, ratio, ratio_given, names, any(x["options"] for x in alts),
@@ -342,11 +276,14 @@ def judge_joint(a, b, env, area_ratio=None):
         ("rate_mm_per_year", rate["penetration_mm_per_year"] if rate else None),
         ("rate", ({k: v for k, v in rate.items() if k not in ("steps", "sources", "warnings")} if rate else None)),
         ("rate_reason", rate_reason),
-        ("assumptions", _assumptions(basis, envrec, ratio, ratio_given, rate, anode_rec, len(j.combos))),
+        *part.keys,
+        ("assumptions", _assumptions(basis, envrec, ratio, ratio_given, rate, anode_rec, len(j.combos),
+                                     extra["assessment"])),
         ("mitigations", advice),
         ("alternatives", alts),
         ("cautions", list(CAUTIONS)),
-        ("steps", steps), ("warnings", warnings), ("sources", _sources(used, basis, envrec, rate, ds)),
+        ("steps", steps), ("warnings", warnings),
+        ("sources", _sources(used, basis, envrec, rate, ds, part.sources)),
         ("data_version", ds.version),
     )
     return JointResult(data)
@@ -356,12 +293,14 @@ def joint_entry(request):
     """JSON entry point: judge a joint of two materials in an environment.
 
     Args:
-        request: ``{"a": material, "b": material, "env": environment, "area_ratio": A_c/A_a (optional)}`` [unitless]
+        request: ``{"a", "b", "env"}``, optional area_ratio and :data:`calc.service.SERVICE_FIELDS` [unitless, °C, m/s]
 
     Returns:
         dict: anode, cathode, basis (with basis_description, basis_source), delta_E_V [V], delta_E_range_V [V],
         allowable_V [V], allowable_source, negligible_V [V],
-        verdict, verdict_text, states, worst_state, area_ratio, rate_mm_per_year [mm/y], rate, assumptions,
+        verdict, verdict_text, states, worst_state, area_ratio, rate_mm_per_year [mm/y] (the upper-bound
+        screen), rate, service_conditions, oxygen_supply, parts, assessment (mixed potential [V vs SCE]),
+        assessment_reason, attack_mm_per_year [mm/y], evans, effects, assumptions,
         mitigations, alternatives, cautions, steps, warnings, sources, data_version
 
     References:
@@ -372,5 +311,7 @@ def joint_entry(request):
     ('zinc', 'carbon-steel')
     """
     material = "a material id, alias or UNS number"
-    read(request, "joint", {"a": material, "b": material, "env": "an environment id"}, ("area_ratio",))
-    return judge_joint(request["a"], request["b"], request["env"], request.get("area_ratio")).to_dict()
+    read(request, "joint", {"a": material, "b": material, "env": "an environment id"},
+         ("area_ratio",) + svc.SERVICE_FIELDS)
+    return judge_joint(request["a"], request["b"], request["env"], request.get("area_ratio"),
+                       svc.stated(request)).to_dict()

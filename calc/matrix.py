@@ -10,10 +10,12 @@ import csv
 import io
 from dataclasses import dataclass
 
+from . import service as svc
 from .advice import CAUTIONS, SACRIFICIAL_RULE, basis_warnings, sacrificial_by_design, volts
 from .dataset import current
 from .derivation import Derivation
 from .errors import InputError
+from .matrixservice import service_table
 from .requests import read
 from .series import EPS_V, TIER_MEANING, TIER_RANK, TIERS, basis_of, material_on, position, states, tier_for
 
@@ -45,6 +47,10 @@ class MatrixResult:
     def to_dict(self):
         """Plain data for JSON (the pairs are copied row by row: they are flat already)."""
         return {k: [list(p) for p in v] if k in ("pairs", "details") else copy.deepcopy(v) for k, v in self.data}
+
+
+#: the service conditions a matrix takes (the anode area of the IR term is a joint's)
+MATRIX_SERVICE = tuple(k for k in svc.SERVICE_FIELDS if k != "anode_area_cm2")
 
 
 def _materials(ds, materials, basis):
@@ -142,7 +148,7 @@ def _steps(basis, n, counts):
     return d.steps
 
 
-def galvanic_matrix(env, materials=None, with_csv=False):
+def galvanic_matrix(env, materials=None, with_csv=False, service=None):
     """Every pair of a list of materials judged in one environment.
 
     Each pair is listed once (the upper triangle, ``a`` before ``b`` in the order of the
@@ -154,6 +160,10 @@ def galvanic_matrix(env, materials=None, with_csv=False):
         env: environment id or alias [unitless]
         materials: material ids, aliases or UNS numbers; None takes every material with data for the basis [unitless]
         with_csv: also write the pairs as CSV text (``csv``, material ids instead of indices) [unitless]
+        service: stated service conditions (:data:`MATRIX_SERVICE`), None: the defaults [°C, g/kg, m/s]
+
+    With a service model (:mod:`calc.service`), each material's state and each pair's mixed-potential
+    answer are added (:func:`calc.matrixservice.service_table`).
 
     Each pair also has its ``details`` (:data:`DETAIL_FIELDS`, in the order of ``pairs``): the
     best and worst differences of the published ranges, the code of :data:`WHY` that says why it
@@ -200,6 +210,7 @@ def galvanic_matrix(env, materials=None, with_csv=False):
     ]
     if with_csv:
         data.append(("csv", _pairs_csv(basis, ds, ids, pairs)))
+    data += list(service_table(ds, envrec, basis, recs, service or {}).items())
     data += [
         ("tiers", [{"id": t, "meaning": TIER_MEANING[t]} for t in TIERS]),
         ("cautions", list(CAUTIONS)),
@@ -225,13 +236,16 @@ def matrix_entry(request):
     """JSON entry point: every pair of materials in one environment.
 
     Args:
-        request: ``{"env": environment, "materials": [ids] (optional), "csv": true (optional)}`` [unitless]
+        request: ``{"env"}``, optional materials, csv and :data:`MATRIX_SERVICE` [unitless, °C, m/s]
 
     Returns:
         dict: env, basis, allowable_V, negligible_V, materials, names, pair_fields, pairs (indices a, b,
         delta_E_V [V], verdict, anode index), counts, detail_fields, details (per pair: best_V [V],
         worst_V [V], why, other_state_V [V], by_design), why (code -> meaning), by_design_rule,
-        csv (only when asked), tiers, cautions, steps, warnings, sources, data_version
+        csv (only when asked), and with a service model service_conditions, oxygen_supply, states_used,
+        service_pair_fields, service_pairs (per pair: anode index, E_couple [V vs SCE], attack and uncoupled
+        rate [mm/y]), service_pairs_reason, service_warnings; tiers, cautions, steps, warnings, sources,
+        data_version
 
     References:
         as :func:`calc.joint.judge_joint`.
@@ -240,8 +254,8 @@ def matrix_entry(request):
     >>> n = len(m["materials"]); len(m["pairs"]) == n * (n - 1) // 2
     True
     """
-    read(request, "matrix", {"env": "an environment id"}, ("materials", "csv"))
+    read(request, "matrix", {"env": "an environment id"}, ("materials", "csv") + MATRIX_SERVICE)
     with_csv = request.get("csv")
     if with_csv is not None and not isinstance(with_csv, bool):
         raise InputError("csv", with_csv, "true or false (whether to add the pairs as CSV text)")
-    return galvanic_matrix(request["env"], request.get("materials"), bool(with_csv)).to_dict()
+    return galvanic_matrix(request["env"], request.get("materials"), bool(with_csv), svc.stated(request)).to_dict()

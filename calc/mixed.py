@@ -176,9 +176,10 @@ def _past_equilibrium(d, el, r, E):
                          "the Tafel line extrapolated")
 
 
-def _reaction_out(d, el, r, E):
+def _reaction_out(d, el, r, E, reference_lines=False):
     i = r.current_density(E)
-    _past_equilibrium(d, el, r, E)
+    if not reference_lines:
+        _past_equilibrium(d, el, r, E)
     lim = None
     if r.i_lim:  # the share of the diffusion limit the cathodic branch runs at
         lim = min(1.0, 10.0 ** r.log10_partials(E)[1] / r.i_lim)
@@ -209,8 +210,8 @@ def _role(net, tolerance, single):
     return "no net current"
 
 
-def _electrode_out(d, el, E, free, anodic_total, single):
-    reactions = [_reaction_out(d, el, r, E) for r in el.reactions]
+def _electrode_out(d, el, E, free, anodic_total, single, reference_lines=False):
+    reactions = [_reaction_out(d, el, r, E, reference_lines) for r in el.reactions]
     net = sum(x["current_A"] for x in reactions)
     attack = dissolution_density(el, E)
     d.step(f"Net current of {el.name}", "I = A·Σ_k i_k (positive: net anodic)",
@@ -235,7 +236,7 @@ def _electrode_out(d, el, E, free, anodic_total, single):
     return out
 
 
-def mixed_result(electrodes, E, halvings, free):
+def mixed_result(electrodes, E, halvings, free, reference_lines=False):
     """The result of a mixed-potential solution: the currents, the checks, the derivation, the diagram.
 
     Args:
@@ -243,6 +244,8 @@ def mixed_result(electrodes, E, halvings, free):
         E: the mixed potential [V]
         halvings: bisection steps taken [unitless]
         free: per electrode (E_corr [V], i_corr [A/cm²]) on its own, or None [V, A/cm²]
+        reference_lines: True when each reaction's E_eq_V is the reference point of a Tafel line
+            (dataset kinetics), not an equilibrium potential: no warning for running past it [unitless]
 
     Returns:
         the result dict of :func:`mixed_entry`
@@ -264,7 +267,7 @@ def mixed_result(electrodes, E, halvings, free):
            "Σ_e A_e·Σ_k i_k(E) = 0, every electrode at one potential (metallic contact, no IR drop)",
            f"bisection on log10 ΣI_anodic − log10 ΣI_cathodic from a bracket around the E_eq values, "
            f"{halvings} halvings", f"E_mixed = {fmt(E, 9)} V")
-    parts = [_electrode_out(d, el, E, f, anodic_total, single) for el, f in zip(electrodes, free)]
+    parts = [_electrode_out(d, el, E, f, anodic_total, single, reference_lines) for el, f in zip(electrodes, free)]
     residual = sum(p["net_current_A"] for p in parts)
     balance = abs(residual) / anodic_total
     d.step("Current balance", f"|Σ_e I_e| / ΣI_anodic ≤ {BALANCE_TOLERANCE:g}",

@@ -9,8 +9,9 @@ deposits keep a real cathode below it; a biofilm on a passive alloy brings it cl
 
 from dataclasses import dataclass
 
+from .bounds import BOUNDS, check
 from .constants import FARADAY
-from .derivation import Derivation, check_number, fmt
+from .derivation import Derivation, fmt
 from .errors import InputError
 from .oxygen import DissolvedOxygen, dissolved_oxygen
 from .requests import norm
@@ -18,15 +19,6 @@ from .transport import (CORRELATIONS, HAN_BARTELS_RANGE_C, N_O2, RE_PIPE_LAMINAR
                         STILL_LAYER_M, diffusion_layer_m, limiting_current_density_A_m2, o2_diffusivity_m2_s,
                         o2_diffusivity_water_m2_s, reynolds_number, schmidt_number, seawater_viscosity_Pa_s,
                         validity_warnings, water_viscosity_Pa_s)
-
-# -- bounds for the lead to move into calc/bounds.py (kept here until then) -------------------------
-#: flow velocity [m/s]: 0 (still) to 30, beyond ship hulls and pipe flows (common practice)
-VELOCITY_BOUND = (0.0, 30.0)
-#: pipe inside diameter and surface length [m], 0 itself not allowed
-DIAMETER_BOUND = (0.0, 10.0)
-LENGTH_BOUND = (0.0, 1000.0)
-#: a still-water diffusion layer given by the user [m]
-STILL_LAYER_BOUND = (1.0e-5, 0.02)
 
 #: geometry -> accepted spellings
 GEOMETRIES = {"pipe": ("pipe", "tube", "inside a pipe"), "surface": ("surface", "plate", "open surface", "hull"),
@@ -89,18 +81,16 @@ def geometry_id(geometry):
 
 def _size(d, geo, diameter_m, length_m):
     """The characteristic length the geometry needs (checked), and a warning for one it ignores."""
-    need = {"pipe": ("diameter_m", diameter_m, DIAMETER_BOUND, "a pipe diameter above 0 and up to"),
-            "surface": ("length_m", length_m, LENGTH_BOUND, "a surface length in the flow direction above 0 "
-                                                            "and up to")}
-    for gid, (field, value, _, _) in need.items():
+    need = {"pipe": ("diameter_m", diameter_m), "surface": ("length_m", length_m)}
+    for gid, (field, value) in need.items():
         if gid != geo and value is not None:
             d.warn(field, f"{field} was not used: the {geo} geometry does not need it")
     if geo == "still":
         return None
-    field, value, (low, high), words = need[geo]
+    field, value = need[geo]
     if value is None:
-        raise InputError(field, None, f"{words} {high:g} m (the {geo} geometry needs it)")
-    return check_number(value, field, f"{words} {high:g} m", low=low, high=high, low_open=True)
+        raise InputError(field, None, f"{BOUNDS[field].allowed} (the {geo} geometry needs it)")
+    return check(field, value)
 
 
 def _correlation(geo, re):
@@ -165,13 +155,11 @@ def oxygen_limiting_current(temp_C, salinity=None, o2_mg_L=None, velocity_m_s=0.
     """
     ox = dissolved_oxygen(temp_C, salinity, chloride_mg_per_L, o2_mg_L)
     geo = geometry_id(geometry)
-    v = check_number(velocity_m_s, "velocity_m_s", f"a flow velocity from 0 to {VELOCITY_BOUND[1]:g} m/s",
-                     *VELOCITY_BOUND)
+    v = check("velocity_m_s", velocity_m_s)
     d = Derivation()  # it starts with the oxygen's steps, warnings and sources
     d.steps.extend(ox.steps), d.warnings.extend(ox.warnings), d.sources.extend(ox.sources)
     size = _size(d, geo, diameter_m, length_m)
-    layer = STILL_LAYER_M if still_layer_m is None else check_number(
-        still_layer_m, "still_layer_m", "a still-water diffusion layer from 1e-05 to 0.02 m", *STILL_LAYER_BOUND)
+    layer = STILL_LAYER_M if still_layer_m is None else check("still_layer_m", still_layer_m)
     t, s = ox.temp_C, ox.salinity
     mu, nu, D, sc = _properties(d, t, s, ox.density_kg_m3)
     re = sh = None

@@ -17,6 +17,7 @@ import gzip
 import json
 import math
 import os
+import re
 
 import pytest
 
@@ -36,8 +37,23 @@ def recorded_data():
         return calc.dataset.set_dataset(json.load(fh))
 
 
+#: Text changed on purpose since the recording, mapped back before comparing (each entry one change):
+#: - issue 17 (mathematics): a negative charge squared in the activity steps is bracketed,
+#:   "·(-2)²" instead of "·-2²" (which reads as −(2²)); nothing else of the text changed.
+_TEXT_AS_RECORDED = ((re.compile(r"·\((-\d+)\)²"), r"·\1²"),)
+
+
+def _as_recorded(text):
+    """A text of today's answer written as the recording wrote it (see _TEXT_AS_RECORDED)."""
+    for pattern, old in _TEXT_AS_RECORDED:
+        text = pattern.sub(old, text)
+    return text
+
+
 def _differences(old, new, path="answer"):
     """Where ``new`` does not hold what ``old`` held (a list of 'path: old != new')."""
+    if isinstance(old, str) and isinstance(new, str):
+        return [] if old == _as_recorded(new) else [f"{path}: {old!r} != {new!r}"]
     if isinstance(old, bool) or old is None or isinstance(old, str):
         return [] if old == new else [f"{path}: {old!r} != {new!r}"]
     if isinstance(old, (int, float)):
@@ -63,6 +79,14 @@ def test_differences_finds_a_changed_number_a_changed_word_and_a_lost_key():
     assert _differences(old, {"E": 1.0, "w": ["a"], "k": {"x": 1}, "new": 2}) == []
 
 
+def test_only_the_documented_text_changes_are_mapped_back():
+    assert _as_recorded("log10 γ = −0.5108·(-2)²·√0.001") == "log10 γ = −0.5108·-2²·√0.001"
+    assert _differences({"s": "x·-2²"}, {"s": "x·(-2)²"}) == []
+    # anything else still counts as a change, a bracketed positive charge included
+    assert _differences({"s": "x·2²"}, {"s": "x·(2)²"}) == ["answer.s: 'x·2²' != 'x·(2)²'"]
+    assert _differences({"s": "E = -0.5 V"}, {"s": "E = −0.5 V"}) != []
+
+
 def test_the_sample_covers_every_entry_point_of_the_recording():
     from calc.api import ENTRY_POINTS
 
@@ -72,6 +96,32 @@ def test_the_sample_covers_every_entry_point_of_the_recording():
     assert sum(not r["answer"]["ok"] for r in ROWS) > 100  # refused requests are part of it
 
 
+#: Result paths changed on purpose since the recording (entry point -> top-level keys of its result,
+#: left out of the comparison with everything under them), each with its reason:
+#: - issue 15 (the joint at the service conditions), joint: the screening rate is now the upper-bound
+#:   screen i_a = i_L·(1 + A_c/A_a) of F. Mansfeld, Corrosion 27 (1971) 436, Case 3 (the anode carries its
+#:   own oxygen reduction too, where the recording had i_c·A_c/A_a), so "rate" (its kind, note, current
+#:   densities, penetration and mass-loss rates), "rate_mm_per_year", and the "steps" and "assumptions"
+#:   that state it changed. The verdicts, potentials and every other key are compared as recorded.
+INTENDED_CHANGES = {"joint": ("rate", "rate_mm_per_year", "steps", "assumptions")}
+
+
+def _without_intended(entry, answer):
+    """An answer with the result keys changed on purpose (INTENDED_CHANGES) left out."""
+    drop = INTENDED_CHANGES.get(entry, ())
+    if not drop or not isinstance(answer.get("result"), dict):
+        return answer
+    return dict(answer, result={k: v for k, v in answer["result"].items() if k not in drop})
+
+
+def test_intended_changes_leave_out_only_their_keys():
+    answer = {"ok": True, "result": {"rate": [1], "verdict": "guarded", "steps": []}}
+    assert _without_intended("joint", answer) == {"ok": True, "result": {"verdict": "guarded"}}
+    assert _without_intended("matrix", answer) is answer
+    assert _differences(_without_intended("joint", {"ok": True, "result": {"verdict": "guarded"}}),
+                        _without_intended("joint", {"ok": True, "result": {"verdict": "unsuited"}})) != []
+
+
 @pytest.mark.parametrize("entry", sorted({r["entry"] for r in ROWS}))
 def test_answers_as_recorded_before_the_relayout(recorded_data, entry):
     from calc.api import call_json
@@ -79,7 +129,7 @@ def test_answers_as_recorded_before_the_relayout(recorded_data, entry):
     problems = []
     for row in (r for r in ROWS if r["entry"] == entry):
         new = strip_version(json.loads(call_json(entry, json.dumps(row["request"]))))
-        diffs = _differences(row["answer"], new)
+        diffs = _differences(_without_intended(entry, row["answer"]), _without_intended(entry, new))
         if diffs:
             problems.append(f"{json.dumps(row['request'])}: " + "; ".join(diffs[:3]))
     assert not problems, f"{len(problems)} answer(s) changed:\n" + "\n".join(problems[:10])

@@ -167,14 +167,16 @@ def test_swapping_the_parts_changes_neither_the_anode_nor_the_verdict(shipped, a
 @given(a=st.sampled_from(SERIES_MATERIALS), b=st.sampled_from(SERIES_MATERIALS),
        env=st.sampled_from(RATED_ENVIRONMENTS), ratio=st.floats(0.001, 1000.0))
 def test_the_joint_rate_is_proportional_to_the_area_ratio(shipped, a, b, env, ratio):
+    # issue 15: the upper-bound screen i_a = i_L·(1 + A_c/A_a) (Mansfeld, Corrosion 27 (1971) 436, Case 3)
     one, r = _joint(a, b, env, 1.0), _joint(a, b, env, ratio)
     assume(r["rate"] is not None)
     for lo_hi in range(2):
-        assert r["rate_mm_per_year"][lo_hi] == pytest.approx(ratio * one["rate_mm_per_year"][lo_hi], rel=2e-5)
-    # and it is ASTM G102 Eq. (1), K1 = 3.27e-3 written out, of i_a = i_c·A_c/A_a
+        assert r["rate_mm_per_year"][lo_hi] == pytest.approx((1 + ratio) / 2 * one["rate_mm_per_year"][lo_hi],
+                                                             rel=2e-5)
+    # and it is ASTM G102 Eq. (1), K1 = 3.27e-3 written out, of i_a = i_L·(1 + A_c/A_a)
     rate = r["rate"]
     for lo_hi in range(2):
-        i_a = rate["cathodic_current_density_uA_per_cm2"][lo_hi] * ratio
+        i_a = rate["cathodic_current_density_uA_per_cm2"][lo_hi] * (1 + ratio)
         expected = 3.27e-3 * i_a * rate["equivalent_weight_g"] / rate["density_g_cm3"]
         assert rate["penetration_mm_per_year"][lo_hi] == pytest.approx(expected, rel=1e-5)
 

@@ -16,6 +16,7 @@ from ..derivation import fmt
 from ..errors import InputError
 from ..joint import judge_joint
 from ..requests import label, read
+from ..service import SERVICE_FIELDS
 from ..series import EPS_V, TIER_MEANING, basis_of, midpoint, tier_for
 from .electrodes import AGAGCL_SW, field_electrode, on_scale, plausibility, read_reading, start_derivation
 
@@ -126,10 +127,22 @@ def _tier(d, envrec, basis, delta, state_fail):
     return tier
 
 
-def _published_judgement(recs, envrec, labels):
+def _service_summary(pub, recs):
+    """The mixed-potential judgement at the service conditions, as the measured result shows it (or None)."""
+    a = pub.get("assessment")
+    if not a:
+        return None
+    free = {part: next((p["free_potential_V_SCE"] for p in a["parts"] if p["id"] == rec["id"]), None)
+            for part, rec in recs.items()}
+    return {"couple_potential_V_SCE": a["couple_potential_V_SCE"], "anode": a["anode"],
+            "attack_mm_per_year": a["anode_penetration_mm_per_year"], "free_potentials_V_SCE": free,
+            "service_conditions": pub["service_conditions"]}
+
+
+def _published_judgement(recs, envrec, labels, service=None):
     """The published-series judgement of the two materials, as the measured result shows it."""
     try:
-        pub = judge_joint(recs["a"]["id"], recs["b"]["id"], envrec["id"]).to_dict()
+        pub = judge_joint(recs["a"]["id"], recs["b"]["id"], envrec["id"], service=service).to_dict()
     except InputError as exc:
         raise InputError({"a": "a_material", "b": "b_material"}.get(exc.field, exc.field), exc.value,
                          exc.allowed, exc.hint) from None
@@ -139,7 +152,7 @@ def _published_judgement(recs, envrec, labels):
     return pub, {"verdict": pub["verdict"], "anode": pub["anode"], "anode_part_name": pub_anode,
                  "delta_E_V": pub["delta_E_V"], "delta_E_range_V": pub["delta_E_range_V"],
                  "basis": pub["basis"], "verdict_text": pub["verdict_text"], "positions": pub["positions"],
-                 "sources": pub["sources"]}
+                 "sources": pub["sources"], "at_service": _service_summary(pub, recs)}
 
 
 def _agreement(pub, pub_anode, anode, tier, delta):
@@ -174,14 +187,14 @@ def _outside_published_ranges(d, recs, measured_sce, labels):
                        "seawater): another state, electrolyte or surface condition, or a reading fault")
 
 
-def _beside_published(d, recs, envrec, labels, anode, tier, delta, measured_sce):
+def _beside_published(d, recs, envrec, labels, anode, tier, delta, measured_sce, service=None):
     """The published-series judgement beside the measured one: (published, agreement, its text)."""
     if len(recs) == 1:
         d.warn("b_material" if "a" in recs else "a_material",
                "the published-series judgement needs both materials; only one was given")
     if len(recs) != 2:
         return None, None, None
-    pub, published = _published_judgement(recs, envrec, labels)
+    pub, published = _published_judgement(recs, envrec, labels, service)
     for s in pub["sources"]:
         d.cite(s)
     agreement, agreement_text = _agreement(pub, published["anode_part_name"], anode, tier, delta)
@@ -241,7 +254,7 @@ def _assumptions(envrec, basis):
 
 
 def measured_joint(a_name, a_reading_V, b_name, b_reading_V, electrode, env, temp_C=None, salinity=None,
-                   chloride_mg_per_L=None, a_material=None, b_material=None):
+                   chloride_mg_per_L=None, a_material=None, b_material=None, service=None):
     """Judge a joint from the two parts' potentials measured on site against one electrode.
 
     Args:
@@ -256,6 +269,8 @@ def measured_joint(a_name, a_reading_V, b_name, b_reading_V, electrode, env, tem
         chloride_mg_per_L: chloride instead of salinity [mg/L]
         a_material: dataset material id of the first part, optional [unitless]
         b_material: dataset material id of the second part, optional [unitless]
+        service: further service conditions for the published judgement (:data:`calc.service.SERVICE_FIELDS`:
+            oxygen, flow, pH, conductivity), optional; temp_C, salinity and chloride count too [unitless]
 
     Returns:
         a :class:`MeasuredJoint` (potentials in [V], difference in [V])
@@ -282,7 +297,11 @@ def measured_joint(a_name, a_reading_V, b_name, b_reading_V, electrode, env, tem
             for part, name in (("a", a_material), ("b", b_material)) if name is not None}
     state_notes, state_fail = _state_check(d, ds, recs, sce, labels, basis.allowable_V)
     tier = _tier(d, envrec, basis, delta, state_fail)
-    published, agreement, agreement_text = _beside_published(d, recs, envrec, labels, anode, tier, delta, sce)
+    conditions = dict(service or {})
+    conditions.update({k: v for k, v in (("temp_C", temp_C), ("salinity", salinity),
+                                          ("chloride_mg_per_L", chloride_mg_per_L)) if v is not None})
+    published, agreement, agreement_text = _beside_published(d, recs, envrec, labels, anode, tier, delta, sce,
+                                                             conditions)
     _context_warnings(d, basis, envrec, el, temp_C is not None)
     data = (
         ("a_name", labels["a"]), ("b_name", labels["b"]), ("a_reading_V", ra), ("b_reading_V", rb),
@@ -310,6 +329,8 @@ def measured_joint(a_name, a_reading_V, b_name, b_reading_V, electrode, env, tem
 #: request fields of ``measured``, in the order its messages list them
 MEASURED_FIELDS = ("a_name", "a_reading_V", "b_name", "b_reading_V", "electrode", "temp_C", "env",
                    "chloride_mg_per_L", "salinity", "a_material", "b_material")
+#: the further service conditions the published judgement takes (:mod:`calc.service`)
+MEASURED_SERVICE = tuple(k for k in SERVICE_FIELDS if k not in MEASURED_FIELDS)
 #: the required ones, in the order they are reported, with what each must hold
 MEASURED_REQUIRED = {"a_name": "a label for the first part", "a_reading_V": "a reading in V",
                      "b_name": "a label for the second part", "b_reading_V": "a reading in V",
@@ -322,7 +343,8 @@ def measured_joint_entry(req):
 
     Request fields: ``a_name``, ``a_reading_V`` [V], ``b_name``, ``b_reading_V`` [V],
     ``electrode``, ``env``; optional ``temp_C`` [°C, default 25], ``salinity`` [g/kg] or
-    ``chloride_mg_per_L`` [mg/L] (Ag/AgCl seawater electrode), ``a_material``, ``b_material``.
+    ``chloride_mg_per_L`` [mg/L] (Ag/AgCl seawater electrode), ``a_material``, ``b_material``; and the
+    further service conditions of the published judgement (:data:`MEASURED_SERVICE`).
 
     Args:
         req: the request dict [unitless]
@@ -340,8 +362,9 @@ def measured_joint_entry(req):
     >>> r["verdict"], r["anode"]
     ('matched', 'pile')
     """
-    read(req, "measured", None, MEASURED_FIELDS)  # the fields listed in their order, as always
-    read(req, "measured", MEASURED_REQUIRED, MEASURED_FIELDS)
+    read(req, "measured", None, MEASURED_FIELDS + MEASURED_SERVICE)  # the fields listed in their order, as always
+    read(req, "measured", MEASURED_REQUIRED, MEASURED_FIELDS + MEASURED_SERVICE)
+    service = {k: req[k] for k in MEASURED_SERVICE if req.get(k) is not None}
     return measured_joint(req["a_name"], req["a_reading_V"], req["b_name"], req["b_reading_V"], req["electrode"],
                           req["env"], req.get("temp_C"), req.get("salinity"), req.get("chloride_mg_per_L"),
-                          req.get("a_material"), req.get("b_material")).to_dict()
+                          req.get("a_material"), req.get("b_material"), service).to_dict()

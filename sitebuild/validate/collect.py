@@ -11,7 +11,7 @@ from ..dataset import FILES
 #: the kinds of record, in the order their problems are reported
 KIND_ORDER = ["sources", "half_reactions", "reference_electrodes", "materials", "environments", "ions",
               "cp_structures", "cp_settings", "cp_criteria", "cp_anode_alloys", "cp_anode_types", "cp_coatings",
-              "cp_current_densities", "cp_design_tables", "gibbs_energies"]
+              "cp_current_densities", "cp_design_tables", "gibbs_energies", "polarization", "service_defaults"]
 #: kind -> file name (a kind the dataset does not read yet is named after its key)
 FILE_OF = {kind: f"{kind}.yaml" for kind in KIND_ORDER}
 FILE_OF.update({key: fname for fname, key in FILES.items()})
