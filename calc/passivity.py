@@ -1,15 +1,21 @@
 """Will a passive stainless or nickel alloy stay passive? PREN, CPT/CCT estimates and a judgement.
 
 - PREN = Cr + 3.3·Mo + 16·N (wt %), and with tungsten PREN_W = Cr + 3.3·(Mo + 0.5·W) + 16·N, the
-  form of ISO 15156-3 (NACE MR0175/ISO 15156-3) [read in secondary restatements]. The nitrogen
-  factor varies from 9 to 36 in the literature, and PREN ranks alloys only for aerated saline waters
-  ("Clarifying the applicability of PREN equations: a review", Corrosion 77 (2021) 382, abstract).
+  form of ISO 15156-3 (NACE MR0175/ISO 15156-3) [the standard not read; the forms as restated].
+  "Clarifying the applicability of PREN equations: a review", Corrosion 77 (2021) 382 (read in its
+  public text, section "Genesis of the PREN equation"): the nitrogen factor ranges from 9 to 36 in
+  the work it reviews, the tungsten factor may be as high as 1 for nickel alloys, and the equations
+  hold only for aerated saline waters (seawater with its dissolved oxygen or other oxidisers).
 - Estimated start temperatures of the ASTM G48 Methods E (CPT) and F (CCT) tests for stainless
-  steels, CPT ≈ 2.5·Cr + 7.6·Mo + 31.9·N − 41.0 and CCT ≈ 3.2·Cr + 7.6·Mo + 10.5·N − 81.0 [°C]:
-  **from memory**, not re-read in the standard; the result says so. They do not count tungsten, and
-  the nickel-alloy Methods C and D are not modelled.
+  steels (Methods E and F as the scope of G48-11 names them), CPT ≈ 2.5·Cr + 7.6·Mo + 31.9·N − 41.0
+  and CCT ≈ 3.2·Cr + 7.6·Mo + 10.5·N − 81.0 [°C]: **from memory**, not re-read in the standard, and
+  no open-access paper printing these fits (or another CPT-PREN fit) was found to read, so the
+  coefficients are kept as recalled and every result says so. They do not count tungsten, and the
+  nickel-alloy Methods C and D are not modelled.
 - :func:`holds` judges the passive state at a service temperature and chloride content on published
   rules of the trade, each named in its ``basis``.
+- :func:`record_pren` reads a material record's composition limits (``composition_limits_min_wt_pct``
+  and ``composition_limits_max_wt_pct`` in data/materials.yaml) and gives the PREN at both ends.
 
 These are screening estimates: heat treatment, welds, surface finish, crevice geometry, biofilm and
 chlorination matter more than a point of PREN (Steinsmo, Rogne & Drugli, Corrosion 53 (1997),
@@ -66,7 +72,8 @@ def pren(cr, mo, n):
 
     References:
         The common form (ISO 15156-3 without tungsten; restated by Euro Inox and Wikipedia); nitrogen
-        factor 16 of the 9-36 range reviewed in Corrosion 77 (2021) 382.
+        factor 16 of the 9-36 range reviewed in Corrosion 77 (2021) 382, section "Genesis of the PREN
+        equation" (read).
 
     >>> round(pren(22.0, 3.0, 0.14), 2)
     34.14
@@ -88,7 +95,8 @@ def pren_w(cr, mo, w, n):
 
     References:
         ISO 15156-3 (NACE MR0175/ISO 15156-3), as restated by Wikipedia "Pitting resistance
-        equivalent number" and steel suppliers.
+        equivalent number" and steel suppliers; Corrosion 77 (2021) 382 (read): the factor 0.5 on W
+        is for stainless steels, nickel alloys may warrant up to 1.
 
     >>> round(pren_w(24.0, 3.0, 0.5, 0.20), 3)
     37.925
@@ -108,7 +116,9 @@ def cpt_estimate(cr, mo, n):
         CPT ≈ 2.5·Cr + 7.6·Mo + 31.9·N − 41.0 [°C]
 
     References:
-        ASTM G48 Method E (stainless steels), from memory: not re-read in the standard.
+        ASTM G48 Method E (critical pitting temperature test for stainless steels), the estimate of
+        its starting temperature from memory: not re-read in the standard, and no published fit was
+        found to read in its place.
 
     >>> round(cpt_estimate(20.0, 6.1, 0.20), 2)
     61.74
@@ -128,7 +138,9 @@ def cct_estimate(cr, mo, n):
         CCT ≈ 3.2·Cr + 7.6·Mo + 10.5·N − 81.0 [°C]
 
     References:
-        ASTM G48 Method F (stainless steels), from memory: not re-read in the standard.
+        ASTM G48 Method F (critical crevice temperature test for stainless steels), the estimate of
+        its starting temperature from memory: not re-read in the standard, and no published fit was
+        found to read in its place.
 
     >>> round(cct_estimate(20.0, 6.1, 0.20), 2)
     31.46
@@ -322,3 +334,77 @@ def passivity_entry(request):
             "temp_given": temp_given, "chloride_mg_per_L": chloride, "chloride_given": chloride_given,
             "steps": d.steps, "warnings": d.warnings, "sources": [],
             "data_version": current().version}
+
+
+# --------------------------------------------------------------------------------------------
+# the PREN of a material record, from its composition limits
+
+#: the fields of a material record that hold its composition limits [wt %]
+LIMITS_MIN, LIMITS_MAX = "composition_limits_min_wt_pct", "composition_limits_max_wt_pct"
+
+
+@dataclass(frozen=True)
+class GradePren:
+    """PREN of a grade at the minimum and at the maximum of its composition limits.
+
+    ``low``/``high`` are (cr, mo, n, w) in wt % (w None when the grade specifies no tungsten);
+    ``basis`` is the record's ``composition_limits_basis`` (``specification`` or ``nominal``).
+    """
+
+    pren_min: float
+    pren_max: float
+    formula: str
+    low: tuple
+    high: tuple
+    basis: str
+    source: str
+    confidence: str
+
+
+def _limit(limits, el):
+    value = limits.get(el, 0.0)
+    return float(value) if isinstance(value, (int, float)) and not isinstance(value, bool) else 0.0
+
+
+def record_pren(rec):
+    """PREN of a material record from its composition limits, or None when it has none.
+
+    An element the limits do not list is taken as 0 (not specified); with tungsten in the limits
+    the ISO 15156-3 form :func:`pren_w` is used, else :func:`pren`. The minimum composition gives
+    the PREN a heat of the grade is sure to have.
+
+    Args:
+        rec: a material record with ``composition_limits_min_wt_pct`` and
+            ``composition_limits_max_wt_pct`` (element -> share) [wt %]
+
+    Returns:
+        a :class:`GradePren` (PREN [unitless], compositions [wt %]), or None without Cr limits
+
+    References:
+        :func:`pren`, :func:`pren_w`; the limits are the data's (their source in the record).
+
+    >>> r = record_pren({"composition_limits_min_wt_pct": {"Cr": 22.0, "Mo": 3.0, "N": 0.14},
+    ...                  "composition_limits_max_wt_pct": {"Cr": 23.0, "Mo": 3.5, "N": 0.20}})
+    >>> round(r.pren_min, 2), round(r.pren_max, 2), r.formula
+    (34.14, 37.75, 'PREN = Cr + 3.3·Mo + 16·N')
+    >>> record_pren({"id": "demo-copper"}) is None
+    True
+    """
+    lo, hi = rec.get(LIMITS_MIN), rec.get(LIMITS_MAX)
+    if not (isinstance(lo, dict) and isinstance(hi, dict) and "Cr" in lo and "Cr" in hi):
+        return None
+    tungsten = "W" in lo or "W" in hi
+    ends = []
+    for limits in (lo, hi):
+        cr, mo, n = _limit(limits, "Cr"), _limit(limits, "Mo"), _limit(limits, "N")
+        w = _limit(limits, "W") if tungsten else None
+        ends.append((cr, mo, n, w))
+    if tungsten:
+        values = [pren_w(cr, mo, w, n) for cr, mo, n, w in ends]
+        formula = "PREN_W = Cr + 3.3·(Mo + 0.5·W) + 16·N (ISO 15156-3)"
+    else:
+        values = [pren(cr, mo, n) for cr, mo, n, _ in ends]
+        formula = "PREN = Cr + 3.3·Mo + 16·N"
+    return GradePren(values[0], values[1], formula, ends[0], ends[1], str(rec.get("composition_limits_basis") or ""),
+                     str(rec.get("composition_limits_source") or ""),
+                     str(rec.get("composition_limits_confidence") or ""))

@@ -561,7 +561,7 @@ def test_sce_polynomial_follows_the_published_temperature_table():
 ATOMIC_WEIGHT = {"Mg": 24.305, "Al": 26.982, "Si": 28.085, "Ti": 47.867, "Cr": 51.996, "Mn": 54.938,
                  "Fe": 55.845, "Ni": 58.693, "Cu": 63.546, "Zn": 65.38, "Mo": 95.95, "Ag": 107.87,
                  "Cd": 112.41, "Sn": 118.71, "W": 183.84, "Pt": 195.08, "Au": 196.97, "Pb": 207.2,
-                 "Be": 9.0122}
+                 "Be": 9.0122, "Nb": 92.906}
 
 
 @pytest.mark.parametrize("mid", sorted(MAT))

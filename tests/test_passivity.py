@@ -28,9 +28,9 @@ DAVISON_REDMOND_TABLE_1 = {
     "N08367": {"cr": (20.00, 22.00), "mo": (6.00, 7.00), "n": (0.18, 0.25)},
     "S31603": {"cr": (16.00, 18.00), "mo": (2.00, 3.00), "n": (0.0, 0.10)},  # N 0.10 max
 }
-# UNS S32205 (ASTM A240 Table 1, as restated in suppliers' data sheets, read): Cr 22.0-23.0,
-# Mo 3.0-3.5, N 0.14-0.20. UNS S32750 (ASTM A479 / A182 F53 / EN 1.4410, as restated in a purchase
-# specification, read): Cr 24.00-26.00, Mo 3.00-5.00, N 0.24-0.32.
+# UNS S32205 (ASTM A240 Table 1: Cr 22.0-23.0, Mo 3.0-3.5, N 0.14-0.20) and UNS S32750 (ASTM A240
+# Table 1: Cr 24.0-26.0, Mo 3.0-5.0, N 0.24-0.32), from memory: an earlier reading in suppliers' copies
+# cannot be named, so these two rows are recalled (the same figures as data/materials.yaml, recalled).
 ASTM_RESTATED = {
     "S32205": {"cr": (22.0, 23.0), "mo": (3.0, 3.5), "n": (0.14, 0.20)},
     "S32750": {"cr": (24.00, 26.00), "mo": (3.00, 5.00), "n": (0.24, 0.32)},
@@ -71,7 +71,8 @@ def test_pren_of_typical_compositions_against_a_published_data_sheet(grade, comp
 # ---------------------------------------------------------------------------- the estimates (from memory)
 
 def test_cpt_and_cct_estimates_are_the_formulas_implemented():
-    # ASTM G48 Methods E and F start-temperature estimates, from memory (not a published check).
+    # ASTM G48 Methods E and F start-temperature estimates, from memory (not a published check): no
+    # open-access paper printing these fits, or another CPT-PREN fit, was found to check them against.
     assert cpt_estimate(20.0, 6.0, 0.2) == pytest.approx(2.5 * 20 + 7.6 * 6 + 31.9 * 0.2 - 41.0, abs=1e-12)
     assert cct_estimate(20.0, 6.0, 0.2) == pytest.approx(3.2 * 20 + 7.6 * 6 + 10.5 * 0.2 - 81.0, abs=1e-12)
     r = passivity_entry({"cr": 20.0, "mo": 6.0, "n": 0.2})

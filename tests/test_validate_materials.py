@@ -1,4 +1,5 @@
-"""Material checks (sitebuild.validate.materials): states of one alloy, ASTM G102 equivalent weights."""
+"""Material checks (sitebuild.validate.materials): states of one alloy, ASTM G102 equivalent weights,
+composition limits of a grade."""
 
 from validatekit import assert_names, check, edit, folder, record  # noqa: F401 - folder is a fixture
 
@@ -74,3 +75,71 @@ def test_an_element_without_an_atomic_weight_is_a_warning(folder):
     assert status == 0
     assert any(ln.startswith("warning: materials.yaml:zinc:equivalent_weight_valences.Xq: cannot re-compute")
                for ln in lines), lines
+
+
+# ---------------------------------------------------------------- composition limits (PREN of a grade)
+# The fixture's 316 limits are those of ASTM A240 for S31603 (Cr 16.0-18.0, Mo 2.0-3.0, N max 0.10).
+
+def _limits(doc, rid, **changes):
+    rec = record(doc, "materials", rid)
+    for key, value in changes.items():
+        rec[key] = value
+    return rec
+
+
+def test_limits_that_run_backwards_are_reported(folder):
+    edit(folder, "materials.yaml", lambda doc: record(doc, "materials", "stainless-316-passive")
+         ["composition_limits_min_wt_pct"].__setitem__("Cr", 19.0))
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-passive", "composition_limits_min_wt_pct.Cr",
+                 "19 wt % above the maximum 18")
+
+
+def test_an_element_needs_both_limits(folder):
+    edit(folder, "materials.yaml", lambda doc: record(doc, "materials", "stainless-316-passive")
+         ["composition_limits_max_wt_pct"].pop("N"))
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-passive", "composition_limits_max_wt_pct",
+                 "N has a limit in composition_limits_min_wt_pct")
+
+
+def test_nominal_limits_must_be_single_values(folder):
+    edit(folder, "materials.yaml", lambda doc: _limits(doc, "stainless-316-passive", composition_limits_basis="nominal"))
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-passive", "composition_limits_min_wt_pct.Cr",
+                 "nominal value has min = max")
+
+
+def test_nominal_composition_must_lie_inside_the_limits(folder):
+    # a nominal 20 % Cr is outside the 16-18 % of the grade
+    edit(folder, "materials.yaml", lambda doc: _limits(
+        doc, "stainless-316-passive", composition_wt_pct={"Fe": 65.5, "Cr": 20.0, "Ni": 12.0, "Mo": 2.5},
+        composition_source="astm-g102", composition_confidence="recalled"))
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-passive", "composition_wt_pct.Cr", "outside the limits 16-18")
+
+
+def test_a_passive_stainless_steel_needs_chromium_limits(folder):
+    def change(doc):
+        for rid in ("stainless-316-passive", "stainless-316-active"):
+            rec = record(doc, "materials", rid)
+            for key in [k for k in rec if k.startswith("composition_limits_")]:
+                del rec[key]
+    edit(folder, "materials.yaml", change)
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-passive", "composition_limits_min_wt_pct",
+                 "passive state has no composition_limits_min_wt_pct", "PREN")
+
+
+def test_both_states_of_one_alloy_share_their_limits(folder):
+    edit(folder, "materials.yaml", lambda doc: record(doc, "materials", "stainless-316-active")
+         ["composition_limits_max_wt_pct"].__setitem__("Mo", 4.0))
+    status, lines = check(folder)
+    assert status == 1
+    assert_names(lines, "materials.yaml", "stainless-316-active", "composition_limits_max_wt_pct",
+                 "differ from those of stainless-316-passive")

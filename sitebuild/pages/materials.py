@@ -1,5 +1,7 @@
 """The materials: one page each, their list, and the galvanic series in flowing seawater."""
 
+from calc.passivity import LIMITS_MAX, LIMITS_MIN, record_pren
+
 from ..charts import CHART_PATH, SERIES_NOTE
 from .cite import citation
 from .links import material_file, source_anchor
@@ -60,6 +62,30 @@ def _equivalent_weight(m):
     return text
 
 
+def _limits_rows(m, cite):
+    """The composition limits of a grade and the PREN computed from them, as table rows."""
+    lo, hi = m.get(LIMITS_MIN), m.get(LIMITS_MAX)
+    if not (isinstance(lo, dict) and isinstance(hi, dict) and lo):
+        return []
+    basis = m.get("composition_limits_basis") or "specification"
+    parts = [Md("{} {}").format(el, num(lo[el])) if lo[el] == hi.get(el) else
+             Md("{} max {}").format(el, num(hi.get(el))) if lo[el] == 0 else
+             Md("{} {}{}{}").format(el, num(lo[el]), DASH, num(hi.get(el))) for el in lo]
+    label = "the limits of its standard" if basis == "specification" else "nominal values"
+    rows = [("Composition limits", Md(", ").join(parts) + Md(" wt% ({})").format(label)
+             + cite("composition_limits", "composition limits"))]
+    if m.get("composition_limits_note"):
+        rows[0] = (rows[0][0], rows[0][1] + Md(". {}").format(m["composition_limits_note"]))
+    grade = record_pren(m)
+    if grade is not None:
+        span = (num(round(grade.pren_min, 1)) if abs(grade.pren_max - grade.pren_min) < 0.05 else
+                Md("{} at the minimum composition, {} at the maximum").format(num(round(grade.pren_min, 1)),
+                                                                             num(round(grade.pren_max, 1))))
+        rows.append(("PREN", span + Md(" ({}; computed from the limits above, an element not listed taken as 0)")
+                     .format(grade.formula)))
+    return rows
+
+
 def _property_rows(page, m, by_id):
     """The (label, value) rows of a material's table, and the fields they show."""
     name = m.get("name") or m.get("id")
@@ -86,6 +112,8 @@ def _property_rows(page, m, by_id):
     if m.get("seawater_range_V_SCE") is not None:
         rows.append(("Flowing seawater range", pair_text(m["seawater_range_V_SCE"], "V vs SCE", places=2)
                      + Md(" (active end to noble end)") + cite("seawater", "seawater range")))
+    elif m.get("seawater_note"):
+        rows.append(("Flowing seawater range", Md.escape(m["seawater_note"])))
     if m.get("anodic_index_V") is not None:
         group = Md(" (group: {})").format(m["anodic_index_group"]) if m.get("anodic_index_group") else Md()
         rows.append(("Anodic index (legacy table)", num(m["anodic_index_V"], 2) + Md(" V") + group
@@ -100,9 +128,11 @@ def _property_rows(page, m, by_id):
         text = Md(", ").join(Md("{} {}").format(el, num(v)) for el, v in comp.items()) + Md(" wt% (nominal)")
         rows.append(("Composition", text + cite("composition" if "composition_source" in m else "equivalent_weight",
                                                 "composition")))
+    rows += _limits_rows(m, cite)
     shown = {"id", "name", "note", "aliases", "uns", "family", "state", "other_state", "seawater_range_V_SCE",
              "anodic_index_V", "anodic_index_group", "density_g_cm3", "equivalent_weight_g",
-             "equivalent_weight_note", "equivalent_weight_valences", "composition_wt_pct"}
+             "equivalent_weight_note", "equivalent_weight_valences", "composition_wt_pct", "seawater_note",
+             LIMITS_MIN, LIMITS_MAX, "composition_limits_basis", "composition_limits_note"}
     return rows + leftover_rows(page, m, shown, name, link)
 
 

@@ -1,5 +1,7 @@
-"""Materials: computed equivalent weights follow ASTM G102, UNS numbers are well formed, and the
-passive and active states of one alloy point at each other, the passive one nobler."""
+"""Materials: computed equivalent weights follow ASTM G102, UNS numbers are well formed, the
+passive and active states of one alloy point at each other, the passive one nobler, and the
+composition limits that PREN is computed from are coherent (min <= max, nominal inside them, the
+same for both states, chromium given for every stainless steel with a passive state)."""
 
 import re
 
@@ -14,6 +16,9 @@ from .ranges import SERIES_FIELDS
 EW_WARN_FRACTION = 0.002
 EW_ERROR_FRACTION = 0.01
 STATES = ("passive", "active")
+LOW, HIGH = "composition_limits_min_wt_pct", "composition_limits_max_wt_pct"
+#: a nominal share may sit outside its limits by rounding only [wt %]
+LIMIT_SLACK_WT_PCT = 1e-6
 UNS_RE = re.compile(r"^[A-Z][0-9]{5}$")
 
 
@@ -95,10 +100,62 @@ def _other_state(label, rec, by_id, out):
         _states(label, rec, other, by_id[other], out)
 
 
+def _limits(label, rec, out):
+    """The element -> (min, max) limits of a record that are coherent; each incoherent one reported."""
+    mins, maxs, good = rec.get(LOW), rec.get(HIGH), {}
+    if not (isinstance(mins, dict) and isinstance(maxs, dict)):
+        return good
+    for el in sorted(set(mins) ^ set(maxs)):
+        where, other = (LOW, HIGH) if el in mins else (HIGH, LOW)
+        out.error("materials", label, f"{other}", f"{el} has a limit in {where} but none in {other}: give both "
+                                                  "(a maximum alone is minimum 0)")
+    nominal = rec.get("composition_limits_basis") == "nominal"
+    for el in (e for e in mins if e in maxs):
+        lo, hi = mins[el], maxs[el]
+        if not (is_num(lo) and is_num(hi)):
+            continue  # the schema reports the type
+        if lo > hi:
+            out.error("materials", label, f"{LOW}.{el}", f"minimum {lo:g} wt % above the maximum {hi:g} wt %")
+        elif nominal and lo != hi:
+            out.error("materials", label, f"{LOW}.{el}", f"limits {lo:g}-{hi:g} wt % with composition_limits_basis "
+                                                         "nominal: a nominal value has min = max; use basis "
+                                                         "specification for a range")
+        else:
+            good[el] = (lo, hi)
+    return good
+
+
+def _composition_limits(label, rec, out):
+    """The nominal composition lies inside the limits; a stainless steel with a passive state has Cr limits."""
+    limits = _limits(label, rec, out)
+    comp = rec.get("composition_wt_pct")
+    for el, (lo, hi) in limits.items():
+        share = comp.get(el) if isinstance(comp, dict) else None
+        if is_num(share) and not lo - LIMIT_SLACK_WT_PCT <= share <= hi + LIMIT_SLACK_WT_PCT:
+            out.error("materials", label, f"composition_wt_pct.{el}", f"nominal {share:g} wt % lies outside the "
+                                                                      f"limits {lo:g}-{hi:g} wt % of the grade")
+    if rec.get("family") == "stainless steel" and rec.get("state") in STATES and "Cr" not in limits:
+        what = f"has no {LOW}" if LOW not in rec else "gives no Cr limits"
+        out.error("materials", label, LOW, f"a stainless steel with a {rec['state']} state {what}: its PREN "
+                                           "(Cr + 3.3·Mo + 16·N) needs at least the Cr limits of its standard")
+
+
+def _same_limits_both_states(label, rec, by_id, out):
+    other = by_id.get(rec.get("other_state")) if isinstance(rec.get("other_state"), str) else None
+    if other is None or LOW not in rec:
+        return
+    for fld in (LOW, HIGH):
+        if rec.get(fld) != other.get(fld):
+            out.error("materials", label, fld, f"composition limits {fmt(rec.get(fld))} differ from those of "
+                                               f"{rec['other_state']} {fmt(other.get(fld))}: both states are one alloy")
+
+
 def check_materials(raw, out):
-    """Equivalent weights, UNS numbers and the two states of each alloy."""
+    """Equivalent weights, UNS numbers, the two states of each alloy and the composition limits."""
     by_id = ids_of(raw, "materials")
     for label, rec in each(raw, "materials"):
         _equivalent_weight(label, rec, out)
         _uns(label, rec, out)
         _other_state(label, rec, by_id, out)
+        _composition_limits(label, rec, out)
+        _same_limits_both_states(label, rec, by_id, out)
