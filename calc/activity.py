@@ -220,7 +220,7 @@ def activity_coefficient(species, ionic_strength_mol_kg, model=None, temp_C=25.0
             d.cite(src)
     lg = log10_gamma(sp.charge, I, model, A, B, size)
     gamma = 10.0 ** lg
-    z = sp.charge
+    z = f"({sp.charge})" if sp.charge < 0 else sp.charge  # (−2)², not −2², in the step text
     if sp.charge == 0:
         d.step("Activity coefficient of a neutral species", "Debye–Hückel models: log10 γ = 0 for z = 0",
                f"z = 0, I = {fmt(I)} mol/kg", "γ = 1 (salting-out is not modelled)")

@@ -5,6 +5,24 @@ dict ``{title, formula, substituted, result}`` with units written out), ``warnin
 ``{field, message}``), the ``sources`` (source ids of the data used) and the ``data_version``.
 :class:`Derivation` collects them while a calculation runs.
 
+The text of steps, warnings and notes is plain text that reads as it is in a terminal (the CLI
+prints it unchanged), with one small markup that the site sets on the page by one rule
+(``docs/assets/js/math.mjs``, ``mathNodes``):
+
+- ``^`` raises what follows it: a bracketed group, ``10^(−pH)`` or ``Sc^(1/3)`` (shown raised
+  without the brackets), or a signed number, fraction, word or charge: ``a(H+)^2``,
+  ``kg^-1/2``, ``λB^1.5``, ``(t − t_ref)^i``, ``SO4^2-``;
+- a number in exponent form, as :func:`fmt` and Python write it (``1e-05``, ``1.16572e+36``,
+  ``3.27e-3``), is shown as 1 × 10⁻⁵ written out, and bracketed when it is raised itself
+  (``1e-10^14``);
+- a hyphen-minus before a number, where it is a sign (not inside a word, an id or a range:
+  ``cuni-90-10``, ``2.4-4 m/s``), is shown as the minus sign U+2212. Operators written by hand
+  in step text use U+2212 (``E_cathode − E_anode``); a negative number raised to a power is
+  bracketed, ``(-2)²``.
+
+Write no TeX (``^{...}``, ``\frac``) in step text: the page would show it raised but not typeset,
+and the CLI as it is.
+
 The engine accepts temperatures from 0 to 100 °C: liquid water at atmospheric pressure, and the
 span of the water correlations used for the Debye–Hückel parameters (Malmberg & Maryott 1956,
 0–100 °C). Outside it there is no liquid water at 1 atm, so the input is refused, not warned.

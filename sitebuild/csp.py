@@ -19,7 +19,11 @@ The policy (every origin other than the site's own is refused):
   Python runtime (Pyodide) needs; it does not need ``'unsafe-eval'`` for a pure-Python package
   (checked by tests/browser/test_csp.py, which serves the header to the worker as well);
 - ``style-src 'self'``: no inline ``<style>`` and no ``style=""`` attribute (the matrix heat map
-  uses classes); styles set from script through the CSSOM are not governed by CSP;
+  uses classes); styles set from script through the CSSOM are not governed by CSP. That is why
+  the formulas are typeset in the page by ``katex.render()`` (DOM nodes, styles through the
+  CSSOM; ``docs/assets/js/typeset.js``) and never from ``katex.renderToString()`` HTML, whose
+  ``style=""`` attributes this policy blocks; KaTeX's stylesheet and fonts are files of the
+  site (``font-src 'self'``);
 - ``img-src 'self' data:``: the theme's icons are ``data:`` SVG images in its stylesheet;
 - ``worker-src``/``connect-src``/``font-src``/``manifest-src`` fall back to ``default-src 'self'``;
   ``object-src 'none'``, ``base-uri 'self'``, ``form-action 'none'`` (the site has no form that

@@ -14,7 +14,9 @@ Wired in ``mkdocs.yml`` (``hooks: [sitebuild/hooks.py]``). What happens on a bui
    reproducible; ``assets/runtime.json`` tells the page where they are. Two start-up aids
    made under Node.js join them: the standard library precompiled to bytecode and a memory
    snapshot with calc imported (both cached in ``node_modules/.cache``); and the calculators'
-   opening answers are computed under CPython (``assets/data/precomputed.json``).
+   opening answers are computed under CPython (``assets/data/precomputed.json``). KaTeX, which
+   typesets the formulas of the pages, is copied from ``node_modules/katex`` into ``katex/``
+   (``sitebuild/mathstage.py``).
 """
 
 import datetime
@@ -65,6 +67,12 @@ def on_config(config, **kwargs):
     config.extra["data_date"] = bundle["date"]
     config.extra["build"] = _state["build"]
     config.extra["pyodide_version"] = _state["pyodide_version"]
+    from sitebuild.mathstage import StageError, katex_version
+
+    try:
+        _state["katex_version"] = katex_version()
+    except StageError as exc:
+        raise PluginError(str(exc)) from None
     return config
 
 
@@ -94,6 +102,7 @@ def _markers():
         "data-version": f"`{bundle['version']}` ({bundle['date']})",
         "build": _state["build"],
         "pyodide-version": _state["pyodide_version"],
+        "katex-version": _state["katex_version"],
         "count-half-reactions": str(len(bundle["half_reactions"])),
         "count-materials": str(len(bundle["materials"])),
         "count-electrodes": str(len(bundle["reference_electrodes"])),
@@ -288,6 +297,12 @@ def on_post_build(config, **kwargs):
     from sitebuild.precompute import write_precomputed
 
     write_precomputed(site, bundle)  # the calculators' opening answers, shown while the runtime starts
+    from sitebuild.mathstage import StageError, stage_katex
+
+    try:  # the typesetter of the pages' formulas, served from the site itself
+        stage_katex(site)
+    except StageError as exc:
+        raise PluginError(str(exc)) from None
     from sitebuild.csp import CSPError, apply_csp
 
     try:  # every page gets the Content-Security-Policy; csp.txt holds it for a server's header

@@ -116,14 +116,15 @@ def write_service_worker(site_dir):
     files = site_files(site_dir)
     digests = file_digests(site_dir, files)
     version = content_hash(digests)
-    meta = dict(_runtime_meta(site_dir), version=version)
+    size = sum(os.path.getsize(os.path.join(site_dir, rel)) for rel in files)
+    # what the copy holds, for the About page (docs/assets/js/about.mjs asks the worker)
+    meta = dict(_runtime_meta(site_dir), version=version, files=len(files), bytes=size)
     with open(os.path.join(HERE, "sw_template.js"), encoding="utf-8") as fh:
         template = fh.read()
     text = (template.replace("__META__", json.dumps(meta))
             .replace("__PRECACHE__", json.dumps(precache_entries(digests), indent=0)))
     with open(os.path.join(site_dir, "sw.js"), "w", encoding="utf-8") as fh:
         fh.write(text)
-    size = sum(os.path.getsize(os.path.join(site_dir, rel)) for rel in files)
     return version, len(files), size
 
 

@@ -3,12 +3,31 @@
 // Pyodide runtime, the calc wheel, the dataset) under one cache per version and serves only
 // from that cache, so the data and calc of two versions are never mixed. The cache name
 // carries the site's path, so two copies of the site on one server keep apart.
-const META = __META__; // {data_version, data_date, build, version}: version hashes every file
+const META = __META__; // {data_version, data_date, build, version, files, bytes}: version hashes every file
 const PRECACHE = __PRECACHE__; // [[URL relative to the site root, "sha256-..." of its bytes or ""], ...]
 const SCOPE = new URL("./", self.location).href;
 const PREFIX = "couplewise:" + new URL(SCOPE).pathname + ":";
 const CACHE = PREFIX + META.version;
 const PARALLEL = 6;
+
+// One file of the precache, at the lowest fetch priority (the install runs beside the page's
+// first use). A file with a digest is first taken from the browser's HTTP cache whatever its age:
+// on a first visit the page has just downloaded the runtime's files (about 16 MB), and the digest
+// proves the copy is this build's. Only when there is no such copy, or it is another build's
+// (the digest check fails), is the server asked again, revalidating (never a stale copy); a
+// server caught between two versions then fails the install, which is retried later. A file
+// without a digest always comes from the server.
+async function fetchForCache(url, integrity) {
+  const init = { credentials: "same-origin", priority: "low" };
+  if (integrity) {
+    try {
+      const cached = await fetch(new Request(url, { ...init, cache: "force-cache", integrity }));
+      if (cached.ok) return cached;
+    } catch (err) { /* no copy, or not this build's bytes: ask the server */ }
+    init.integrity = integrity;
+  }
+  return fetch(new Request(url, { ...init, cache: "no-cache" }));
+}
 
 async function precache() {
   const cache = await caches.open(CACHE);
@@ -18,11 +37,7 @@ async function precache() {
     for (let item = queue.shift(); item && !failed; item = queue.shift()) {
       const [path, integrity] = item;
       const url = new URL(path, SCOPE).href;
-      // Revalidate with the server (never a stale HTTP-cache copy) and check the bytes are this
-      // build's: a server caught between two versions fails the install, which is retried later.
-      const init = { cache: "no-cache", credentials: "same-origin" };
-      if (integrity) init.integrity = integrity;
-      let response = await fetch(new Request(url, init));
+      let response = await fetchForCache(url, integrity);
       if (!response.ok) throw new Error(url + ": HTTP " + response.status);
       if (response.redirected) {
         // A redirected response cannot answer a navigation: keep the body and headers only.

@@ -2,6 +2,7 @@
 // every model against ionic strength.
 import { calculate } from "./site.mjs";
 import { lineChart } from "./charts.mjs";
+import { mathNodes, mathText } from "./math.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import {
   ACTIVITY_MODELS, allowed, begin, derivation, field, fieldMap, fill, fmt, h, hint, known, numberInput, readInto,
@@ -10,7 +11,7 @@ import {
 
 export async function activity(root) {
   const { ui, ds, sp, start, params } = await begin(root, "Activity coefficient", "activity");
-  const ions = ds.ions.map((i) => ({ value: i.species, label: i.species + " (z = " + i.charge + ", å = " + i.size_angstrom + " Å)" }));
+  const ions = ds.ions.map((i) => ({ value: i.species, label: mathText(i.species + " (z = " + i.charge + ", å = " + i.size_angstrom + " Å)") }));
   const spField = field("cw-sp", "Ion", select(ions, known(new Set(ions.map((i) => i.value)), params.get("sp"), start.species)));
   const iField = field("cw-i", "Ionic strength I (mol/kg)", numberInput(params.get("I") ?? start.ionic_strength), hint(sp, "ionic_strength"));
   const modelField = field("cw-model", "Model", select(ACTIVITY_MODELS, known(new Set(ACTIVITY_MODELS.map((m) => m.value)), params.get("model"), start.model)));
@@ -47,7 +48,7 @@ export async function activity(root) {
   function render(r, req) {
     fill(ui.result,
       h("p", { class: "cw-big" }, h("span", { class: "cw-big-label", text: "γ " }), h("span", { class: "cw-big-value", "data-cw-value": "gamma", text: fmt(r.gamma, 4) })),
-      h("p", { class: "cw-direction", text: "Debye–Hückel A = " + fmt(r.A, 4) + " kg^½ mol^−½, B = " + fmt(r.B, 4) + " kg^½ mol^−½ Å^−1 at " + fmt(r.temp_C, 1) + " °C." }),
+      h("p", { class: "cw-direction" }, mathNodes("Debye–Hückel A = " + fmt(r.A, 4) + " kg^1/2 mol^−1/2, B = " + fmt(r.B, 4) + " kg^1/2 mol^−1/2 Å^−1 at " + fmt(r.temp_C, 1) + " °C.")),
       warningsList(r.warnings), charts, derivation(r.steps), sourcesLine(r.sources, r.data_version));
     drawChart(req, r);
   }

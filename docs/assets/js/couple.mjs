@@ -1,6 +1,7 @@
 // Couple: two half-reactions at a temperature and activities; which is oxidised, E_cell, ΔG, K,
 // and the E–pH chart of the two couples between the water lines (carried by the same result).
 import { lineChart } from "./charts.mjs";
+import { mathNodes, mathText } from "./math.mjs";
 import { runner } from "./runner.mjs";
 import {
   allowed, begin, derivation, field, fieldMap, fieldText, fill, fmt, h, hint, known, numberInput, readInto, select,
@@ -24,7 +25,7 @@ export async function couple(root) {
   const reactions = [...ds.half_reactions].sort((x, y) => x.E0_V - y.E0_V);
   const byId = new Map(reactions.map((r) => [r.id, r]));
   const ids = new Set(byId.keys());
-  const opts = reactions.map((r) => ({ value: r.id, label: r.id + "  (E° " + signed(r.E0_V, 3) + " V)" + (r.hypothetical ? " hypothetical" : "") }));
+  const opts = reactions.map((r) => ({ value: r.id, label: mathText(r.id) + "  (E° " + signed(r.E0_V, 3) + " V)" + (r.hypothetical ? " hypothetical" : "") }));
   const aField = field("cw-a", "First half-reaction", select(opts, known(ids, params.get("a"), start.a)));
   const bField = field("cw-b", "Second half-reaction", select(opts, known(ids, params.get("b"), start.b)));
   const tField = field("cw-t", "Temperature (°C)", numberInput(params.get("t") ?? start.temp_C), hint(sp, "temp_C"));
@@ -125,8 +126,8 @@ export async function couple(root) {
       series, legendRight: true, xRange: [eph.pH[0], eph.pH[eph.pH.length - 1]],
       marker: anode.potential_V !== undefined ? [phNow, anode.potential_V] : null, markerLabel: "anode, your conditions",
     }), reasons.length ? h("figcaption", { class: "cw-eph-caption" }, h("strong", { text: "Where a line stops (the bar at its end): " }),
-      ...reasons.map((t) => h("span", { class: "cw-eph-reason", text: t + " " })),
-      caveats.length ? h("span", { class: "cw-eph-caveat", text: "Note: " + caveats.join("; ") + "." }) : null) : null));
+      ...reasons.map((t) => h("span", { class: "cw-eph-reason" }, mathNodes(t + " "))),
+      caveats.length ? h("span", { class: "cw-eph-caveat" }, mathNodes("Note: " + caveats.join("; ") + ".")) : null) : null));
     performance.mark("cw-chart-painted");
   }
 

@@ -1,5 +1,6 @@
 // Electrode: one half-reaction at a temperature, activities (or molalities through a model).
 import { lineChart } from "./charts.mjs";
+import { mathText } from "./math.mjs";
 import { runner } from "./runner.mjs";
 import {
   ACTIVITY_MODELS, allowed, begin, derivation, field, fieldMap, fieldText, fill, fmt, h, hint, known, numberInput,
@@ -16,7 +17,7 @@ export async function electrode(root) {
   const { ui, ds, sp, start, params } = await begin(root, "Electrode potential", "electrode");
   const reactions = [...ds.half_reactions].sort((x, y) => x.E0_V - y.E0_V);
   const byId = new Map(reactions.map((r) => [r.id, r]));
-  const opts = reactions.map((r) => ({ value: r.id, label: r.id + "  (E° " + signed(r.E0_V, 3) + " V)" }));
+  const opts = reactions.map((r) => ({ value: r.id, label: mathText(r.id) + "  (E° " + signed(r.E0_V, 3) + " V)" }));
   const models = new Set(ACTIVITY_MODELS.map((m) => m.value));
   const mode = params.get("mode") ?? (start.molalities ? "molality" : "activity");
   const idField = field("cw-id", "Half-reaction", select(opts, known(new Set(byId.keys()), params.get("id"), start.id)));

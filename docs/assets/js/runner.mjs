@@ -1,7 +1,8 @@
 // The runner of a calculator: sends the form's request to the worker as the inputs change,
 // marks a result that no longer matches the inputs (grey, and a note in words that the result is
 // described by), shows calc's refusal at the field it names, says what is wrong where there is
-// no result yet, and paints the build-time answer of the opening request while the runtime starts.
+// no result yet, and paints the answer of the opening request worked out when the site was built
+// while the runtime starts (with a note in the user's words: nothing about builds or runtimes).
 import { calculate, h, onRuntime, precomputedAnswers } from "./site.mjs";
 import { fill } from "./ui.mjs";
 
@@ -31,6 +32,11 @@ function staleNote(ui) {
   }
   return ui.staleNote;
 }
+
+// The note on an answer worked out in advance (the same calc and data as the page's own).
+const EARLY_LOADING = "The answer for the inputs this page opens with, worked out in advance; other inputs are calculated once the calculator has loaded.";
+const EARLY_FAILED = "The answer for the inputs this page opens with, worked out in advance; the calculator could not start, so other inputs cannot be calculated here.";
+const NO_RUNTIME = "No result: the calculator could not start (see the message above).";
 
 function runtimeStage() {
   let stage = "idle";
@@ -89,8 +95,7 @@ export function runner(ui, name, onResult, fieldFor) {
     if (!result || settled || my !== ticket) return;
     hasResult = true;
     onResult(result, request);
-    early = h("p", { class: "cw-early-note", role: "status" },
-      h("span", { class: "cw-badge", text: "build time" }), " Computed at build time for these inputs, refining…");
+    early = h("p", { class: "cw-early-note", role: "status", text: EARLY_LOADING });
     ui.result.classList.add("cw-early");
     ui.result.prepend(early);
     performance.mark("cw-early-painted");
@@ -118,10 +123,11 @@ export function runner(ui, name, onResult, fieldFor) {
       onResult(out.result, request);
       setStale(false);
       performance.mark("cw-result-painted");
-    } else if (early && out.error.field === "runtime") {
-      early.replaceChildren(h("span", { class: "cw-badge", text: "build time" }),
-        " Computed at build time for these inputs; the calculation runtime could not start, so other inputs cannot be calculated here.");
-      ui.formMsg.textContent = out.error.message;
+    } else if (out.error.field === "runtime") {
+      // the status line above the form says that the calculator could not start, and why
+      if (early) early.textContent = EARLY_FAILED;
+      else if (!hasResult) fill(ui.result, h("p", { class: "cw-pending", text: NO_RUNTIME }));
+      else setStale(true);
     } else {
       clearRefusal();
       const f = fieldFor ? fieldFor(out.error.field) : null;

@@ -48,6 +48,11 @@ export function startWorker() {
   return worker;
 }
 
+// This module is the first script of every page (an async module script in <head>,
+// sitebuild/theme/main.html): evaluated as soon as it arrives, before the theme's bundle and the
+// page entry, so the runtime's start overlaps the page's own loading.
+if (typeof document !== "undefined") startWorker();
+
 // Run one calculation in the worker: resolves to {ok, result} or {ok: false, error}.
 export function calculate(name, request) {
   const w = startWorker();
@@ -99,18 +104,43 @@ export function h(tag, attrs, ...children) {
 }
 
 // The runtime's status line of a calculator: made as soon as the page binds the calculator
-// (before its module has loaded), then taken over by the calculator's frame (ui.mjs).
+// (before its module has loaded), then taken over by the calculator's frame (ui.mjs). It speaks
+// only while it matters to the user: while the calculator is still loading, or when it could not
+// start; once ready it is empty and hidden (its state stays in data-stage, and in full words on
+// the About page, runtimeWords()).
 export function runtimeStatus() {
   const status = h("div", { class: "cw-runtime", role: "status", "aria-live": "polite" });
   onRuntime((rt) => {
-    const text = {
-      idle: "Calculation runtime: not started",
-      loading: "Calculation runtime: loading (" + rt.detail + ")…",
-      ready: "Calculation runtime: ready",
-      failed: "Calculation runtime failed to start: " + rt.detail,
-    }[rt.stage] || rt.stage;
-    status.textContent = text;
     status.dataset.stage = rt.stage;
+    if (rt.stage === "loading") {
+      status.replaceChildren("Loading the calculator… Changes to the inputs are calculated as soon as it is ready.");
+    } else if (rt.stage === "failed") {
+      status.replaceChildren("The calculator could not start (" + rt.detail + "). Reloading the page tries again; ",
+        h("a", { href: new URL("about/", siteRoot).href, text: "About this copy" }), " says what this browser holds.");
+    } else status.replaceChildren();
+    status.hidden = !status.firstChild;
   });
   return status;
+}
+
+// The runtime's state in full words, for the About page.
+export function runtimeWords(rt) {
+  return {
+    idle: "Not started on this page.",
+    loading: "Loading (" + rt.detail + ")…",
+    ready: "Ready: the calculations run in this browser, on data version " + rt.detail + ".",
+    failed: "Could not start: " + rt.detail + ".",
+  }[rt.stage] || rt.stage;
+}
+
+// The version a service worker serves, {version, data_version, data_date, build, files, bytes},
+// or null when it does not answer within 3 s.
+export function askVersion(sw) {
+  return new Promise((resolve) => {
+    if (!sw) { resolve(null); return; }
+    const channel = new MessageChannel();
+    const timer = setTimeout(() => resolve(null), 3000);
+    channel.port1.onmessage = (event) => { clearTimeout(timer); resolve(event.data || null); };
+    sw.postMessage({ type: "version" }, [channel.port2]);
+  });
 }

@@ -2,6 +2,7 @@
 // holds a number or it does not: what is allowed is calc's to decide), the frame every
 // calculator sits in (runtime status, form, result, print view), the parts of a result
 // (derivation, warnings, sources, verdict badge) and the URL state. Text only ever as text.
+import { mathNodes, numberText } from "./math.mjs";
 import { problemText, readDecimal, visible } from "./numbers.mjs";
 import { dataset, h, precomputedAnswers, runtimeStatus, siteRoot, spec } from "./site.mjs";
 
@@ -11,19 +12,15 @@ export function sourceLink(id) {
   return h("a", { href: new URL("reference/sources/#src-" + encodeURIComponent(id), siteRoot).href, class: "cw-source" }, id);
 }
 
+// A number as the page shows it (the one rule, math.mjs): m × 10ⁿ for very small or large
+// magnitudes, a true minus sign.
 export function fmt(x, digits = 4) {
-  if (typeof x !== "number" || !Number.isFinite(x)) return String(x);
-  const a = Math.abs(x);
-  if (a !== 0 && (a < 1e-3 || a >= 1e6)) {
-    const [m, e] = x.toExponential(3).split("e");
-    return m + " × 10^" + String(Number(e)).replace("-", "−");
-  }
-  return x.toFixed(digits);
+  return numberText(x, digits);
 }
 
 export function signed(x, digits = 4) {
   const s = fmt(x, digits);
-  return x > 0 ? "+" + s : s.replace("-", "−");
+  return x > 0 ? "+" + s : s;
 }
 
 // Replace an element's children, skipping empty parts (null, undefined, false).
@@ -223,7 +220,7 @@ function preparePrint(root, title, head) {
   const hook = (before) => {
     if (!root.isConnected) { printHooks.delete(hook); return; }
     if (before) {
-      const footer = document.querySelector(".cw-footer");
+      const footer = document.querySelector(".cw-footer .cw-record"); // data version and build
       fill(head,
         h("p", { class: "cw-print-title", text: "Couplewise record: " + title }),
         h("p", { text: "Printed " + new Date().toISOString().replace("T", " ").slice(0, 16) + " UTC. Reproduce it at: " + location.href }),
@@ -242,11 +239,12 @@ export function derivation(steps) {
   if (!steps || !steps.length) return null;
   const list = h("ol", { class: "cw-steps" });
   for (const st of steps) {
+    // the engine's plain-text markup (exponents, signs) set by the one rule of math.mjs
     list.append(h("li", {},
-      h("strong", { text: st.title || "" }),
-      st.formula ? h("div", { class: "cw-formula", text: st.formula }) : null,
-      st.substituted ? h("div", { class: "cw-subst", text: st.substituted }) : null,
-      st.result ? h("div", { class: "cw-step-result", text: st.result }) : null));
+      h("strong", {}, mathNodes(st.title || "")),
+      st.formula ? h("div", { class: "cw-formula" }, mathNodes(st.formula)) : null,
+      st.substituted ? h("div", { class: "cw-subst" }, mathNodes(st.substituted)) : null,
+      st.result ? h("div", { class: "cw-step-result" }, mathNodes(st.result)) : null));
   }
   return h("details", { class: "cw-derivation" }, h("summary", { text: "Derivation (" + steps.length + " steps)" }), list);
 }
@@ -255,7 +253,7 @@ export function warningsList(warnings) {
   if (!warnings || !warnings.length) return null;
   return h("ul", { class: "cw-warnings" }, warnings.map((w) =>
     h("li", { class: "cw-warning" }, h("span", { class: "cw-badge cw-badge-warn", text: "check" }), " ",
-      typeof w === "string" ? w : w.message || JSON.stringify(w))));
+      mathNodes(typeof w === "string" ? w : w.message || JSON.stringify(w)))));
 }
 
 export function sourcesLine(ids, dataVersion) {
@@ -268,19 +266,24 @@ export function sourcesLine(ids, dataVersion) {
 export function cautionsBox(cautions) {
   if (!cautions || !cautions.length) return null;
   return h("div", { class: "admonition warning" }, h("p", { class: "admonition-title", text: "Cautions" }),
-    h("ul", {}, cautions.map((c) => h("li", { text: c }))));
+    h("ul", {}, cautions.map((c) => h("li", {}, mathNodes(c)))));
 }
 
 export function assumptionsBox(items) {
   if (!items || !items.length) return null;
-  return h("details", { class: "cw-assumptions" }, h("summary", { text: "Assumptions" }), h("ul", {}, items.map((a) => h("li", { text: a }))));
+  return h("details", { class: "cw-assumptions" }, h("summary", { text: "Assumptions" }), h("ul", {}, items.map((a) => h("li", {}, mathNodes(a)))));
 }
 
-export const VERDICT_SYMBOL = { matched: "◎", compatible: "○", guarded: "△", unsuited: "✕" };
+// A verdict tier's mark (the allowance gauge, drawn by couplewise.css: .cw-mark-<tier>); its
+// pattern comes with the class cw-v-<tier>. The word is calc's tier id.
+export const TIERS = ["matched", "compatible", "guarded", "unsuited"];
+
+export function tierMark(verdict) {
+  return h("span", { class: "cw-mark cw-mark-" + verdict, "aria-hidden": "true" });
+}
 
 export function verdictBadge(verdict) {
-  return h("span", { class: "cw-verdict cw-v-" + verdict, "data-verdict": verdict },
-    h("span", { class: "cw-v-symbol", "aria-hidden": "true", text: VERDICT_SYMBOL[verdict] || "?" }), " ", verdict);
+  return h("span", { class: "cw-verdict cw-v-" + verdict, "data-verdict": verdict }, tierMark(verdict), h("span", { class: "cw-v-word", text: verdict }));
 }
 
 // URL state: read on load, write (replaceState) on every change.
