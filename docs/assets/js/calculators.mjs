@@ -12,6 +12,9 @@ export const CALCULATORS = {
   measured: "field.mjs",
   cp: "field.mjs",
   survey: "survey.mjs",
+  cpdesign: "cpdesign.mjs",
+  mixed: "mixed.mjs",
+  passivity: "passivity.mjs",
 };
 
 // A promise of the setup function of a calculator, or null for a name the site does not have.
