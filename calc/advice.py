@@ -9,6 +9,7 @@ designed under the applicable standard.
 
 import weakref
 
+from .scope import series_caveat
 from .series import EPS_V, TIER_RANK, judge_pair, position
 
 #: number of alternatives listed per direction
@@ -69,7 +70,7 @@ def basis_warnings(basis):
         out.append({"field": "env", "message":
                     f"the galvanic series used was measured in {basis.series_name}, not in {basis.env_name}: a "
                     f"galvanic series is specific to the electrolyte it was measured in ({_G82}), so positions and "
-                    "the order of close neighbours may differ here"})
+                    "the order of close neighbours may differ here", **series_caveat(basis)})
     if basis.kind == "anodic-index" and basis.immersed:
         out.append({"field": "env", "message":
                     f"{basis.env_name} is an immersed electrolyte but is judged on the anodic index, a table for "

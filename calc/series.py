@@ -6,11 +6,16 @@ The environment record fixes the basis of comparison:
   [active end, noble end] in V vs SCE (ASTM G82-98 (R2014) Fig. 1, reproducing F. L. LaQue,
   *Marine Corrosion: Causes and Prevention*, 1975, flowing seawater). The nominal potential of
   a material is the mid-point of its range; the more negative one is the anode. A galvanic
-  series is specific to the electrolyte it was measured in (ASTM G82 §5).
+  series is specific to the electrolyte it was measured in (ASTM G82 §5; MIL-STD-889B
+  Notice 1, 1979, §5.1.2): where an environment's electrolyte is not the series' one, the basis
+  says so (:func:`series_caveat`) and every result carries the warning.
 - ``anodic-index``: the legacy military/industry anodic-index table (0 V gold to 1.85 V
-  beryllium), with allowable differences by severity: harsh 0.15 V, normal 0.25 V, controlled
-  0.50 V. The larger index is the anode.
+  beryllium), with allowable differences by severity class (harsh, normal, controlled; the
+  values are data, in each environment's ``allowable_V``). The larger index is the anode.
 
+The allowable difference of every environment is the one of its severity class, and an
+environment in continuous contact with an electrolyte takes the harsh class
+(:data:`IMMERSION_RULE`), so immersion is never judged more leniently than any atmosphere.
 The tier rule is written here once (:func:`tier_for`): the joint, the matrix, the alternatives
 and the measured joint all call it.
 """
@@ -18,6 +23,7 @@ and the measured joint all call it.
 from dataclasses import dataclass
 
 from .errors import DataError, InputError
+from .scope import IMMERSION_RULE
 
 #: verdict tiers, best first (our own names)
 TIERS = ("matched", "compatible", "guarded", "unsuited")
@@ -118,6 +124,15 @@ class Basis:
     immersed: bool
     description: str
     series_name: str = ""  # plain name of the series' electrolyte ('' for anodic index)
+    electrolyte: str = ""  # the environment's electrolyte in plain words ('' when the record does not say)
+    series_electrolyte: str = ""  # the electrolyte the series was measured in ('' when not known)
+    allowable_note: str = ""  # why this allowable applies (the immersion rule), or ''
+
+    @property
+    def other_electrolyte(self):
+        """True when the galvanic series was measured in another electrolyte than the environment's."""
+        return (self.kind == "galvanic-series" and bool(self.electrolyte) and bool(self.series_electrolyte)
+                and self.electrolyte != self.series_electrolyte)
 
 
 def _immersed(env):
@@ -141,15 +156,16 @@ def basis_of(env, ds=None):
 
     References:
         ASTM G82-98 (R2014) §5 (a galvanic series belongs to its electrolyte); legacy anodic-index
-        table (harsh 0.15 V, normal 0.25 V, controlled 0.50 V).
+        table (the allowable difference of each severity class); :data:`IMMERSION_RULE`.
 
     >>> b = basis_of({"id": "demo", "name": "Demo", "basis": "anodic-index", "severity": "harsh",
     ...               "allowable_V": 0.15, "allowable_source": "x"})
     >>> (b.kind, b.value_field, b.allowable_V)
     ('anodic-index', 'anodic_index_V', 0.15)
     >>> from calc.dataset import current
-    >>> basis_of(current().get("environments", "seawater-quiescent"), current()).series
-    'seawater-flowing'
+    >>> soil = basis_of(current().get("environments", "buried-soil"), current())
+    >>> (soil.series, soil.electrolyte, soil.series_electrolyte, soil.other_electrolyte)
+    ('seawater-flowing', 'soil', 'seawater', True)
     """
     kind = env.get("basis")
     eid = env.get("id", "?")
@@ -164,10 +180,11 @@ def basis_of(env, ds=None):
     name = env.get("name", eid)
     if kind == "galvanic-series":
         series = env.get("series") or eid
-        series_name = series
+        series_name, series_electrolyte = series, env.get("electrolyte", "") if series == eid else ""
         if ds is not None:
             try:
-                series_name = ds.get("environments", series).get("name", series)
+                srec = ds.get("environments", series)
+                series_name, series_electrolyte = srec.get("name", series), srec.get("electrolyte", "")
             except InputError:
                 pass
         prefix = str(series).split("-")[0].replace(" ", "_").lower()  # 'seawater-flowing' -> 'seawater'
@@ -175,7 +192,8 @@ def basis_of(env, ds=None):
                 "in V vs SCE; "
                 "the mid-point of a range is the nominal potential and the more negative metal is the anode")
         return Basis(kind, eid, name, series, f"{prefix}_range_V_SCE", f"{prefix}_source", f"{prefix}_confidence",
-                     *limits, desc, series_name)
+                     *limits, desc, series_name, env.get("electrolyte") or "", series_electrolyte or "",
+                     IMMERSION_RULE if env.get("severity") == "harsh" else "")
     desc = ("anodic index (legacy military/industry table): one value per metal group in V, 0 for gold; "
             "the larger index is the anode; the allowable difference depends on the severity of exposure")
     return Basis(kind, eid, name, "", "anodic_index_V", "anodic_index_source", "anodic_index_confidence",
@@ -385,9 +403,9 @@ def judge_pair(ds, rec_a, rec_b, basis):
     >>> from calc.dataset import current
     >>> ds = current()
     >>> b = basis_of(ds.get("environments", "seawater-flowing"), ds)
-    >>> j = judge_pair(ds, ds.get("materials", "titanium"), ds.get("materials", "316"), b)
+    >>> j = judge_pair(ds, ds.get("materials", "alloy-400"), ds.get("materials", "316"), b)
     >>> (j.primary.tier, j.tier, j.state_demoted, j.worst.b)
-    ('compatible', 'guarded', True, 'stainless-316-active')
+    ('matched', 'guarded', True, 'stainless-316-active')
     """
     combos = tuple(compare(pa, pb, basis) for _, pa in states(ds, rec_a, basis) for _, pb in states(ds, rec_b, basis))
     primary = combos[0]

@@ -159,3 +159,18 @@ def test_matrix_flags_sacrificial_anodes_on_steel_and_keeps_their_verdict(ds):
     assert flags[frozenset(("copper", "zinc"))] == ("unsuited", False)
     assert flags[frozenset(("copper", "carbon-steel"))][1] is False
     assert m["by_design_rule"]["source"] == "common-practice"
+
+
+@pytest.mark.parametrize("env", ["buried-soil", "fresh-water"])
+def test_soil_and_fresh_water_results_carry_the_loud_caveat(env):
+    # ASTM G82-98 (R2014) §5: a galvanic series is specific to its electrolyte; the joint and the matrix judged
+    # in soil or fresh water on the seawater series say so, with the code the pages show as a banner
+    from calc.joint import joint_entry
+
+    for result in (M.matrix_entry({"env": env, "materials": ["zinc", "carbon-steel", "copper"]}),
+                   joint_entry({"a": "copper", "b": "carbon-steel", "env": env})):
+        loud = [w for w in result["warnings"] if w.get("code") == "series-other-electrolyte"]
+        assert len(loud) == 1 and "seawater" in loud[0]["message"].lower()
+        assert "ASTM G82" in loud[0]["basis"] and "§5" in loud[0]["basis"]
+    calm = M.matrix_entry({"env": "seawater-flowing", "materials": ["zinc", "copper"]})
+    assert not [w for w in calm["warnings"] if w.get("code")]

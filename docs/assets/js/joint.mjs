@@ -2,8 +2,10 @@
 // on its scale (the galvanic series, or the anodic index for the legacy basis).
 import { siteRoot } from "./site.mjs";
 import { scaleChart } from "./charts.mjs";
+import { seriesCaveat } from "./caveat.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import { materialName } from "./names.mjs";
+import { cpDesignLink } from "./cpdesignlink.mjs";
 import {
   allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
   known, materialOptions, numberInput, readInto, select, sourceLink, sourcesLine, verdictBadge, warningsList, writeUrl,
@@ -80,6 +82,18 @@ function pairScale(r, ds, name) {
   });
 }
 
+// Which severity class of the legacy table the allowance is, from the environment's record; for an
+// immersed or buried environment, that it takes the harsh class (docs/conventions.md).
+function allowanceClass(ds, envId) {
+  const e = ds.environments.find((x) => x.id === envId);
+  if (!e || !e.severity) return null;
+  const wet = e.basis === "galvanic-series";
+  return h("div", { class: "cw-reason" }, (wet ? "the " + e.severity + " class of the anodic-index table, applied to " +
+    (e.electrolyte === "soil" ? "burial" : "immersion") + ": never more lenient than the atmosphere (" : "the " + e.severity +
+    " class of the anodic-index table ("),
+  h("a", { href: new URL("conventions/#allowable-differences", siteRoot).href, text: "why" }), ")");
+}
+
 // The screening rate in words that say what it is: an upper bound of the galvanic attack.
 function rateText(r) {
   const rate = r.rate_mm_per_year;
@@ -90,7 +104,7 @@ function rateText(r) {
 function adviceNodes(r) {
   return [
     h("h3", { text: "What to do" }),
-    h("ul", { class: "cw-mitigations" }, (r.mitigations || []).map((m) => h("li", {}, h("strong", { text: m.text }), h("br"), h("span", { class: "cw-reason", text: "Why here: " + m.reason })))),
+    h("ul", { class: "cw-mitigations" }, (r.mitigations || []).map((m) => h("li", {}, h("strong", { text: m.text }), h("br"), h("span", { class: "cw-reason", text: "Why here: " + m.reason }), cpDesignLink(m, r)))),
     h("h3", { text: "Closer-matched materials" }),
     ...(r.alternatives || []).map((alt) => h("details", { class: "cw-alts" }, h("summary", { text: alt.text + " (" + alt.count + " pass)" }),
       h("ol", {}, alt.options.map((o) => h("li", {}, o.name + ": ΔE " + fmt(o.delta_E_V, 3) + " V, margin " + fmt(o.margin_V, 3) + " V ", verdictBadge(o.verdict)))))),
@@ -128,7 +142,9 @@ export async function joint(root) {
     const diff = index ? "Anodic-index difference" : "Potential difference ΔE";
     const chart = h("div", { class: "cw-series-box" });
     const whole = index ? null : h("details", { class: "cw-series-whole" }, h("summary", { text: "The whole galvanic series, the pair highlighted" }), chart);
+    const caveat = seriesCaveat(r.warnings);
     fill(ui.result,
+      caveat.banner,
       h("p", { class: "cw-big" }, verdictBadge(r.verdict)),
       h("p", { class: "cw-direction", text: r.verdict_text }),
       h("p", { class: "cw-meaning", text: "“" + r.verdict + "”: " + r.verdict_meaning }),
@@ -138,12 +154,13 @@ export async function joint(root) {
         h("tr", {}, h("th", { text: "Basis" }), h("td", {}, r.basis_description || r.basis, " ", sourceLink(r.basis_source))),
         h("tr", {}, h("th", { text: diff + ", nominal" }), h("td", { "data-cw-value": "delta_E_V", text: fmt(r.delta_E_V, 3) + " V" })),
         index ? null : h("tr", {}, h("th", { text: "ΔE best to worst case" }), h("td", { text: range.map((v) => fmt(v, 3)).join(" to ") + " V" })),
-        h("tr", {}, h("th", { text: "Allowable " + (index ? "index difference" : "ΔE") + " in this environment" }), h("td", {}, fmt(r.allowable_V, 2) + " V ", sourceLink(r.allowable_source))),
+        h("tr", {}, h("th", { text: "Allowable " + (index ? "index difference" : "ΔE") + " in this environment" }), h("td", {}, fmt(r.allowable_V, 2) + " V ", sourceLink(r.allowable_source),
+          allowanceClass(ds, r.env))),
         h("tr", {}, h("th", { text: "Area effect" }), h("td", { text: r.area_effect || "" })),
         h("tr", {}, h("th", { text: "Galvanic attack on the anode, upper-bound screen" }), h("td", {},
           h("span", { "data-cw-value": "rate_mm_per_year", text: rateText(r) }),
           r.rate_mm_per_year ? h("div", { class: "cw-reason", text: "An upper bound, not a prediction: the cathode is taken to draw its full oxygen-limited current and all of it to leave through the anode. Real attack is usually less, and concentrated next to the joint." }) : null)))),
-      warningsList(r.warnings),
+      warningsList(caveat.rest),
       statesTable(r.states || [], name),
       adviceNodes(r),
       h("h3", { text: index ? "Where the pair sits on the anodic-index scale" : "Where the pair sits in the series" }),

@@ -1,15 +1,16 @@
 // Matrix: every pair of a set of materials in one environment. Every cell shows the difference,
-// the verdict symbol, which of the two corrodes (an arrow to the row or the column) and, where
+// the verdict's mark and pattern (our own tier language: couplewise.css), which of the two corrodes (an arrow to the row or the column) and, where
 // the verdict is not the plain reading of the number, why (ranges, state, CP by design); tapping
 // a cell explains its verdict and links to the joint page for that pair.
 import { calculate } from "./site.mjs";
 import { canonical, runner } from "./runner.mjs";
 import {
-  VERDICT_SYMBOL, begin, derivation, environmentOptions, field, fieldMap, fill, fmt, h, known, select, sourcesLine,
+  TIERS, begin, derivation, environmentOptions, field, fieldMap, fill, fmt, h, known, select, sourcesLine, tierMark,
   verdictBadge, warningsList, writeUrl,
 } from "./ui.mjs";
 import { environmentName, jointHref, materialName } from "./names.mjs";
 import { materialPicker } from "./picker.mjs";
+import { seriesCaveat } from "./caveat.mjs";
 
 // Sequential, colour-blind-safe, monotonic in lightness (readable in grey): light = small ΔE.
 // The shades are the classes cw-heat-0 … cw-heat-6 in couplewise.css: no style attributes, so
@@ -18,6 +19,13 @@ const HEAT_SHADES = 7;
 // The mark under a cell's number: why its verdict is what it is, where the number alone does not say.
 const WHY_MARK = { range: "range", state: "state" };
 const BY_DESIGN_MARK = "CP";
+// What each tier's mark and pattern show, in a few words (the meaning itself is calc's: r.tiers).
+const TIER_GLOSS = {
+  matched: "gauge nearly empty, plain: a negligible difference",
+  compatible: "gauge half full, level lines: within the allowance",
+  guarded: "gauge brimful under a dotted lid, diagonal hatching: within it as named, past it in a range or state",
+  unsuited: "gauge overflowing, cross-hatching: beyond the allowance",
+};
 
 // One pair of the result as an object (the result lists columns: pair_fields, detail_fields).
 function pairAt(r, k) {
@@ -41,9 +49,9 @@ function heatTable(names) {
     table.append(h("thead", {}, h("tr", {}, h("th", { class: "cw-corner", text: "ΔE (V)" }),
       ids.map((id) => h("th", { scope: "col" }, h("span", { text: names(id) }))))));
     const body = document.createElement("tbody");
-    const cell = document.createElement("td"); // a cell: ΔE, the verdict symbol; below, the anode arrow and a mark
+    const cell = document.createElement("td"); // a cell: ΔE, the tier's mark; below, the anode arrow and a mark of why
     cell.tabIndex = 0;
-    cell.append(h("span", { class: "cw-d" }, ""), h("span", { class: "cw-v-symbol", "aria-hidden": "true" }, ""),
+    cell.append(h("span", { class: "cw-d" }, ""), h("span", { class: "cw-tile", "aria-hidden": "true" }, h("span", { class: "cw-mark" })),
       h("span", { class: "cw-sub" }, h("span", { class: "cw-anode", "aria-hidden": "true" }, ""), h("span", { class: "cw-why" }, "")));
     const diag = h("td", { class: "cw-diag", text: "—" });
     const cells = new Array(n * n).fill(null);
@@ -76,7 +84,7 @@ function heatTable(names) {
       const shade = Math.min(HEAT_SHADES - 1, Math.floor((p.delta_E_V / max) * (HEAT_SHADES - 1) + 1e-9));
       const mark = p.by_design ? BY_DESIGN_MARK : (p.verdict === "guarded" && WHY_MARK[p.why]) || "";
       const cls = "cw-cell cw-heat-" + shade + " cw-v-" + p.verdict + (p.by_design ? " cw-by-design" : "");
-      const text = fmt(p.delta_E_V, 2), sym = " " + (VERDICT_SYMBOL[p.verdict] || "");
+      const text = fmt(p.delta_E_V, 2), tileCls = "cw-tile cw-v-" + p.verdict, markCls = "cw-mark cw-mark-" + p.verdict;
       for (const [row, col] of [[p.a, p.b], [p.b, p.a]]) {
         const at = row * n + col;
         const arrow = p.anode === null ? "=" : p.anode === row ? "←" : "↑";
@@ -91,7 +99,8 @@ function heatTable(names) {
         td.dataset.k = String(k);
         td.setAttribute("aria-label", aria);
         td.children[0].textContent = text;
-        td.children[1].textContent = sym;
+        td.children[1].className = tileCls;
+        td.children[1].firstChild.className = markCls;
         td.children[2].children[0].textContent = arrow;
         td.children[2].children[1].textContent = mark ? " " + mark : "";
       }
@@ -188,18 +197,22 @@ export async function matrix(root) {
     fill(panel, h("p", { class: "cw-explain-hint", text: "Tap a cell to see why it has its verdict and to open that joint." }));
     if (openCell) show(openCell);
     const legend = h("div", { class: "cw-legend" },
-      h("p", {}, "Each cell: ΔE in volts (darker = larger) and the verdict symbol: ",
-        ...Object.entries(VERDICT_SYMBOL).map(([v, sym]) => h("span", { class: "cw-legend-item", text: sym + " " + v + "  " }))),
+      h("p", {}, "Each cell: ΔE in volts (darker = larger), the verdict's mark and pattern:"),
+      h("ul", { class: "cw-tier-legend" }, TIERS.map((t) => h("li", {},
+        h("span", { class: "cw-tile cw-v-" + t, "aria-hidden": "true" }, tierMark(t)), h("strong", { text: " " + t }),
+        h("span", { class: "cw-tier-gloss", text: " " + TIER_GLOSS[t] })))),
       h("p", {}, h("strong", { text: "← " }), "the row's material corrodes; ", h("strong", { text: "↑ " }), "the column's material corrodes; ",
         h("strong", { text: "= " }), "neither. ", h("strong", { text: "range" }), ": guarded because the published ranges reach past the limit; ",
         h("strong", { text: "state" }), ": guarded because the other passive/active state of a part fails; ",
         h("strong", { text: BY_DESIGN_MARK }), ": a sacrificial anode or zinc coating on steel, corroding by design."));
-    const rest = [warningsList(r.warnings), derivation(r.steps), sourcesLine(r.sources, r.data_version)].filter(Boolean);
+    const caveat = seriesCaveat(r.warnings);
+    const before = [caveat.banner, legend, panel].filter(Boolean);
+    const rest = [warningsList(caveat.rest), derivation(r.steps), sourcesLine(r.sources, r.data_version)].filter(Boolean);
     if (wrap.parentNode === ui.result) { // the same table stays in place: replace what is around it
       for (const c of [...ui.result.childNodes]) if (c !== wrap) c.remove();
-      wrap.before(legend, panel);
+      wrap.before(...before);
       wrap.after(...rest);
-    } else fill(ui.result, legend, panel, wrap, rest);
+    } else fill(ui.result, ...before, wrap, rest);
   }
   const run = runner(ui, "matrix", render, fieldFor);
   function changed() { const { req, bad } = collect(); run.schedule(req, bad); }
