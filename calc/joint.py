@@ -267,6 +267,7 @@ def judge_joint(a, b, env, area_ratio=None, service=None):
         ("delta_E_range_V", [round(primary.best_V, 4), round(primary.worst_V, 4)]),
         ("allowable_V", basis.allowable_V), ("allowable_source", basis.allowable_source or None),
         ("negligible_V", basis.negligible_V),
+        ("allowable_note", basis.allowable_note or None), ("electrolyte", basis.electrolyte or None),
         ("passes", primary.delta_E_V <= basis.allowable_V + EPS_V),
         ("verdict", j.tier), ("verdict_text", verdict_text(j, rec_a, rec_b, basis, names)),
         ("verdict_meaning", TIER_MEANING[j.tier]),

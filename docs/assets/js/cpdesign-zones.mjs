@@ -42,7 +42,7 @@ export function zonesEditor(ds, start, changed) {
       depth_m: numField(id + "-depth", "Depth (m)", z.depth_m),
       area_m2: numField(id + "-area", "Area (m²)", z.area_m2),
       coating: field(id + "-coating", "Coating", choice(coatings, z.coating, "bare")),
-      remove: h("button", { type: "button", class: "md-button cw-touch cw-cpd-remove" }, h("span", { "aria-hidden": "true", text: "✕" }), h("span", { class: "cw-cpd-remove-words", text: " Remove" })),
+      remove: h("button", { type: "button", class: "md-button cw-touch cw-cpd-remove" }, h("span", { class: "cw-cpd-remove-words", text: "Remove" })),
     };
     r.tr = h("tr", { class: "cw-cpd-zone" },
       ...["name", "zone", "depth_m", "area_m2", "coating"].map((k) => h("td", { class: "cw-cpd-" + k.replace("_", "-") }, r[k].el)),

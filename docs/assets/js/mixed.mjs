@@ -96,7 +96,7 @@ export async function mixed(root) {
       r.fields[c.key] = f;
       return h("td", {}, f.el);
     });
-    r.removeBtn = h("button", { type: "button", class: "cw-mx-btn cw-mx-x", text: "✕" });
+    r.removeBtn = h("button", { type: "button", class: "cw-mx-btn cw-mx-x", "aria-label": "Remove this reaction", text: "Remove" });
     r.removeBtn.addEventListener("click", () => {
       if (e.reactions.length < 2) return;
       e.reactions.splice(e.reactions.indexOf(r), 1);

@@ -110,7 +110,7 @@ export async function passivity(root) {
     const value = (name, text) => h("td", { "data-cw-value": name, text });
     fill(ui.result,
       h("p", { class: "cw-big" }, h("span", { class: "cw-pv-verdict " + (holds ? "cw-pv-holds" : "cw-pv-fails"), "data-cw-value": "holds" },
-        h("span", { class: "cw-pv-symbol", "aria-hidden": "true", text: holds ? "✓" : "✕" }), holds ? "Judged passive" : "Judged not passive")),
+        holds ? "Judged passive" : "Judged not passive")),
       h("p", { class: "cw-direction", text: r.reason.replace(/^judged (not )?passive: /, "Why: ") }),
       h("table", { class: "cw-compare cw-pv-out" }, h("tbody", {},
         h("tr", {}, h("th", { text: r.pren_formula.startsWith("PREN_W") ? "PREN_W (with tungsten)" : "PREN" }), value("pren", fmt(r.pren, 2)),
@@ -127,7 +127,7 @@ export async function passivity(root) {
       r.checks && r.checks.length ? h("table", { class: "cw-pv-checks" },
         h("thead", {}, h("tr", {}, ["Rule", "Met?", "At these conditions"].map((t) => h("th", { scope: "col", text: t })))),
         h("tbody", {}, r.checks.map((c) => h("tr", {}, h("td", { text: c.rule }),
-          h("td", { class: "cw-pv-met", text: c.passed ? "✓ met" : "✕ not met" }), h("td", { text: c.words }))))) : null,
+          h("td", { class: "cw-pv-met", text: c.passed ? "met" : "not met" }), h("td", { text: c.words }))))) : null,
       h("p", {}, h("strong", { text: "Published basis: " })),
       h("ul", { class: "cw-pv-basis" }, (r.basis || []).map((b) => h("li", { text: b }))),
       warningsList(r.warnings),
