@@ -106,6 +106,21 @@ def test_the_sample_covers_every_entry_point_of_the_recording():
 INTENDED_CHANGES = {"joint": ("rate", "rate_mm_per_year", "steps", "assumptions")}
 
 
+#: - issue 17 (site readings), cp: an on reading (IR drop included) that the recording judged
+#:   "protected (not conclusive: on reading)" now has a neutral state of its own, "unconfirmed": for exactly
+#:   those answers the verdict must now be "unconfirmed", and its label and text (which say so) are left out.
+ON_READING_WAS = "protected (not conclusive: on reading)"
+
+
+def _on_reading_now_unconfirmed(old, new):
+    """Whether ``old`` is a recorded on-reading 'protected' that must now read 'unconfirmed' (and does)."""
+    was, now = old.get("result"), new.get("result")
+    if not (isinstance(was, dict) and was.get("verdict_label") == ON_READING_WAS):
+        return False
+    assert isinstance(now, dict) and now.get("verdict") == "unconfirmed", now
+    return True
+
+
 def _without_intended(entry, answer):
     """An answer with the result keys changed on purpose (INTENDED_CHANGES) left out."""
     drop = INTENDED_CHANGES.get(entry, ())
@@ -129,7 +144,12 @@ def test_answers_as_recorded_before_the_relayout(recorded_data, entry):
     problems = []
     for row in (r for r in ROWS if r["entry"] == entry):
         new = strip_version(json.loads(call_json(entry, json.dumps(row["request"]))))
-        diffs = _differences(_without_intended(entry, row["answer"]), _without_intended(entry, new))
+        old = row["answer"]
+        if entry == "cp" and _on_reading_now_unconfirmed(old, new):
+            keys = ("verdict", "verdict_label", "verdict_text")
+            old = dict(old, result={k: v for k, v in old["result"].items() if k not in keys})
+            new = dict(new, result={k: v for k, v in new["result"].items() if k not in keys})
+        diffs = _differences(_without_intended(entry, old), _without_intended(entry, new))
         if diffs:
             problems.append(f"{json.dumps(row['request'])}: " + "; ".join(diffs[:3]))
     assert not problems, f"{len(problems)} answer(s) changed:\n" + "\n".join(problems[:10])
