@@ -38,11 +38,13 @@ from sitebuild.dataset import load_project_bundle
 # steel-soil-limit no longer provisional (-1.20 V instant-off read in UFGS-13110A); no value changed.
 # cp_criteria flags read 9 -> 22, recalled 41 -> 42 (82 % -> 66 % recalled); three sources added
 # (ufc-3-570-06-2003, nace-rp0169, ufgs-13110a).
+# Issue 18 (values read): sources iupac-gold-book-she, trasatti-pac-1986, hamer-1972,
+# harris-qca-2010, tinker-rasor-cse-temperature added; iupac-green-book-2007 (no longer cited) removed.
 FINGERPRINT = {
     "counts": {"half_reactions": 78, "reference_electrodes": 16, "materials": 68, "environments": 10,
-               "ions": 61, "sources": 75, "cp_criteria": 24, "cp_structures": 7, "cp_settings": 6,
+               "ions": 61, "sources": 79, "cp_criteria": 24, "cp_structures": 7, "cp_settings": 6,
                "gibbs_energies": 37},
-    "sum_E0_V": -24.17122,
+    "sum_E0_V": -24.13021,  # issue 18: V2+/V -1.19, Pd2+/Pd 0.987, Pt2+/Pt 1.20 (read), Hg2SO4/Hg 0.61251
     "sum_dEdT_mV_per_K": -7.342,
     "sum_reference_E_V_SHE": 3.4874,
     "sum_seawater_range_ends_V_SCE": -44.52,
@@ -53,7 +55,8 @@ FINGERPRINT = {
     "sum_ion_size_angstrom": 234.5,
     "sum_gibbs_dGf_kJ_per_mol": -9913.27,
     # confidence flags of the files above: a flag changed from recalled to read (or back) is on purpose
-    "flags": {"read": 268, "recalled": 297, "computed": 121},
+    # issue 18: 25 flags read (half-reactions 5, reference electrodes 2, ions 18), one computed
+    "flags": {"read": 293, "recalled": 271, "computed": 122},
 }
 
 

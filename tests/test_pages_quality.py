@@ -72,7 +72,8 @@ def test_the_work_list_holds_every_recalled_value_with_its_field_and_source():
 def test_record_links_point_to_the_record_pages():
     assert record_link("half_reactions", "Zn2+/Zn") == "reference/series.md#hr-zn2p-zn"
     assert record_link("materials", "zinc") == "reference/materials/zinc.md"
-    assert record_link("gibbs_energies", "Zn2+(aq)") is None
+    assert record_link("gibbs_energies", "Zn2+(aq)") == "reference/gibbs-energies.md#dg-zn2p-aq"
+    assert record_link("cp_coatings", "x") is None
 
 
 def test_tally_of_no_flags():
@@ -88,6 +89,7 @@ def test_where_text_is_escaped_and_empty_when_absent():
 @pytest.mark.parametrize("kind, doc", [("half_reactions", "reference/series.md"),
                                        ("reference_electrodes", "reference/electrodes.md"),
                                        ("ions", "reference/ions.md"),
+                                       ("gibbs_energies", "reference/gibbs-energies.md"),
                                        ("environments", "reference/environments.md"),
                                        ("cp_criteria", "reference/cp-criteria.md")])
 def test_each_record_page_shows_where_every_read_value_was_read(kind, doc):

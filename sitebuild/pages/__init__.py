@@ -19,6 +19,7 @@ from .cite import COMPUTED, RECALLED, bibliography, citation, citation_short
 from .cp import PROVISIONAL, cp_criteria_page
 from .electrodes import electrodes_page, model_text
 from .environments import environments_page
+from .gibbs import gibbs_page
 from .kit import _TITLE_SAFE, Site, with_title
 from .links import (_slug, couple_anchor, electrode_anchor, environment_anchor, href, material_file, page_url,
                     source_anchor)
@@ -51,6 +52,7 @@ def generate_pages(bundle, raw_html=True):
     pages["reference/electrodes.md"] = electrodes_page(site)
     pages["reference/environments.md"] = environments_page(site)
     pages["reference/ions.md"] = ions_page(site)
+    pages["reference/gibbs-energies.md"] = gibbs_page(site)
     pages["reference/galvanic-series.md"] = galvanic_series(site)
     pages["reference/cp-criteria.md"] = cp_criteria_page(site)
     pages["reference/data-quality.md"] = quality_page(site)

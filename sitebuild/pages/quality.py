@@ -11,6 +11,7 @@ from calc.dataset import KINDS
 
 from ..validate.where import each_flag
 from .cite import SOURCES_PAGE
+from .gibbs import GIBBS_PAGE, gibbs_anchor
 from .links import (couple_anchor, cp_anchor, cp_structure_anchor, electrode_anchor, environment_anchor,
                     ion_anchor, material_file, source_anchor)
 from .text import Md
@@ -25,6 +26,7 @@ RECORD_PAGES = {
     "reference_electrodes": ("reference/electrodes.md", electrode_anchor),
     "environments": ("reference/environments.md", environment_anchor),
     "ions": ("reference/ions.md", ion_anchor),
+    "gibbs_energies": (GIBBS_PAGE, gibbs_anchor),
     "cp_criteria": ("reference/cp-criteria.md", cp_anchor),
     "cp_structures": ("reference/cp-criteria.md", cp_structure_anchor),
 }

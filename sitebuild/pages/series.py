@@ -5,6 +5,7 @@ import re
 from calc.errors import InputError
 from calc.species import parse_species
 
+from ..validate.gibbs import gibbs_table, potential_from_gibbs
 from .links import couple_anchor, ion_anchor
 from .text import DASH, Md, esc
 from .values import isnum, num, range_text, signed
@@ -48,11 +49,15 @@ def reaction_html(rec):
     return Md("{} → {}").format(left, right)
 
 
-def _couple_row(page, r):
+def _couple_row(page, r, table=None):
     cid = r.get("id")
     anchor = couple_anchor(cid)
     link = f"series.md#{anchor}"
     e0 = signed(r.get("E0_V"), 2) + page.cite(r, "E0", what=f"E° of {cid}", link=link)
+    derived = potential_from_gibbs(r, table) if table and r.get("gibbs_note") else None
+    if derived is not None:  # the handbook line and the thermodynamic value disagree: show both
+        e0 += Md('<br>from ΔG°f: {} <span class="cw-where">({})</span>').format(
+            signed(round(derived, 3), 2), page.a("computed", "gibbs-energies.md#gibbs-check"))
     if isnum(r.get("dEdT_mV_per_K")):
         dedt = signed(r["dEdT_mV_per_K"]) + page.cite(r, "dEdT", what=f"dE°/dT of {cid}", link=link)
     else:
@@ -98,7 +103,8 @@ def series_page(site):
     """Standard reduction potentials, most noble first, each with its sources and notes."""
     page = site.page(SERIES_PAGE)
     recs = sorted(site.recs("half_reactions"), key=_potential_order)
-    rows = [_couple_row(page, r) for r in recs]
+    table = gibbs_table(site.bundle)
+    rows = [_couple_row(page, r, table) for r in recs]
     notes = [n for n in (_couple_note(page, r) for r in recs) if n]
     return page.render("series.md.j2", count=len(recs), rows=rows, notes=notes)
 
