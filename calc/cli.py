@@ -9,7 +9,7 @@ import json
 import re
 import sys
 
-from . import api, clicp, dataset
+from . import api, clicp, cliservice, dataset
 from .activity import MODELS
 from .bounds import BOUNDS
 from .errors import DataError, InputError
@@ -148,10 +148,12 @@ def build_parser():
     j.add_argument("b")
     j.add_argument("--env", required=True)
     j.add_argument("--area-ratio", type=_number, metavar="CATHODE_TO_ANODE")
+    cliservice.add_service_options(j, "joint", _number, _bound)
     m = sub.add_parser("matrix", help="every pair of materials in an environment")
     m.add_argument("--env", required=True)
     m.add_argument("--materials", metavar="A,B,...")
     m.add_argument("--csv", action="store_true", help="write CSV instead of text")
+    cliservice.add_service_options(m, "matrix", _number, _bound)
     r = sub.add_parser("rate", help="ASTM G102 penetration and mass-loss rate from a current density")
     r.add_argument("--material", required=True)
     r.add_argument("--current-density", type=_number, required=True, metavar="UA_PER_CM2")
@@ -166,6 +168,7 @@ def build_parser():
     _water_options(ms)
     ms.add_argument("--a-material", metavar="MATERIAL", help="material of the first part, for the published series")
     ms.add_argument("--b-material", metavar="MATERIAL", help="material of the second part")
+    cliservice.add_service_options(ms, "measured", _number, _bound)
     cp = sub.add_parser("cp", help="judge a cathodic-protection reading against the published criteria")
     cp.add_argument("value", type=_number, help=_bound("the reading [V vs electrode]", "reading_V"))
     cp.add_argument("--structure", required=True, metavar="ID", help="e.g. carbon-steel, aluminium")
@@ -177,6 +180,7 @@ def build_parser():
     cp.add_argument("--structure-temp", type=_number, default=None, metavar="C", help=_bound("structure temperature [°C]", "structure_temp_C"))
     cp.add_argument("--polarisation", type=_number, default=None, metavar="MV", help=_bound("polarisation shift [mV]", "polarisation_mV"))
     _water_options(cp)
+    cliservice.add_service_options(cp, "cp", _number, _bound)
     d = sub.add_parser("data", help="maintainer tools for the dataset")
     dsub = d.add_subparsers(dest="data_command", parser_class=_Parser)
     dc = dsub.add_parser("check", help="validate a data folder; every problem as file:record:field: message")
@@ -236,14 +240,14 @@ def _request(ns):
         req = {"a": ns.a, "b": ns.b, "env": ns.env}
         if ns.area_ratio is not None:
             req["area_ratio"] = ns.area_ratio
-        return req
+        return {**req, **cliservice.service_request(ns)}
     if cmd == "matrix":
         req = {"env": ns.env}
         if ns.materials:
             req["materials"] = [s.strip() for s in ns.materials.split(",") if s.strip()]
         if ns.csv:
             req["csv"] = True  # the CSV text is made only when asked for
-        return req
+        return {**req, **cliservice.service_request(ns)}
     if cmd == "rate":
         return {"material": ns.material, "current_density_uA_per_cm2": ns.current_density}
     if cmd == "measured":
@@ -252,7 +256,7 @@ def _request(ns):
         for key in ("a_material", "b_material"):
             if getattr(ns, key):
                 req[key] = getattr(ns, key)
-        return _water_request(ns, req)
+        return _water_request(ns, {**req, **cliservice.service_request(ns)})
     if cmd == "cp":
         req = {"structure": ns.structure, "setting": ns.setting, "reading_V": ns.value, "electrode": ns.electrode,
                "reading_kind": ns.reading_kind}
@@ -260,7 +264,7 @@ def _request(ns):
             req["structure_temp_C"] = ns.structure_temp
         if ns.polarisation is not None:
             req["polarisation_mV"] = ns.polarisation
-        return _water_request(ns, req)
+        return _water_request(ns, {**req, **cliservice.service_request(ns)})
     if cmd in clicp.OPTIONS:
         return clicp.request_of(ns, sys.stdin)
     if cmd == "mixed":

@@ -36,12 +36,110 @@ def _fmt(value):
     return str(value)
 
 
+def _short(value, unit=""):
+    """A number in three significant figures with its unit; a [low, high] pair as one value or a span."""
+    if isinstance(value, list) and len(value) == 2 and value[0] == value[1]:
+        value = value[0]
+    if isinstance(value, list):
+        return " to ".join(_short(v) for v in value) + (f" {unit}" if unit else "")
+    text = f"{value:.3g}" if isinstance(value, float) else _fmt(value)
+    return text + (f" {unit}" if unit and value is not None else "")
+
+
+def _conditions(conds):
+    """The service conditions used, each with where its value came from (the user, the environment, computed)."""
+    out = []
+    for key, v in (conds or {}).items():
+        if isinstance(v, dict):
+            out.append(f"{key} {_short(v['value'], v.get('unit', ''))} ({v['from']})")
+    return ["service conditions: " + (conds or {}).get("electrolyte", "") + ("; " if out else "") + "; ".join(out)]
+
+
+def _at_service(result):
+    """A joint at its service conditions: the mixed-potential answer, then the upper-bound screen."""
+    a = result.get("assessment")
+    if "assessment" not in result:
+        return []
+    if a is None:
+        lines = [f"at the service conditions: no mixed-potential judgement ({result.get('assessment_reason')})"]
+    else:
+        lines = [f"at the service conditions (mixed potential): anode {a['anode']}, couple potential "
+                 f"{_short(a['couple_potential_V_SCE'], 'V vs SCE')}, galvanic current on the anode "
+                 f"{_short(a['galvanic_current_density_on_anode_uA_per_cm2'], 'µA/cm²')}"]
+        anode = next((p for p in a.get("parts") or [] if p.get("role") == "anode"), {})
+        lines.append(f"attack_mm_per_year: {_short(result.get('attack_mm_per_year'))} (the anode coupled; "
+                     f"uncoupled {_short(anode.get('free_penetration_mm_per_year'), 'mm/y')})")
+        lines += _conditions(result.get("service_conditions"))
+    rate = result.get("rate")
+    if rate:
+        lines.append(f"upper-bound screen ({rate['formula']}, O2 limit from the {rate['limiting_current_from']}): "
+                     f"{_short(rate['penetration_mm_per_year'], 'mm/y')} on {rate['anode']}; {rate['note']}")
+    elif result.get("rate_reason"):
+        lines.append(f"upper-bound screen: none ({result['rate_reason']})")
+    return lines + [f"effect: {e}" for e in result.get("effects") or []]
+
+
+def _cp_post(result):
+    """A CP reading: the readings of its test post, the IR drop considered, then each criterion's state."""
+    lines = []
+    if result.get("polarisation_mV") is not None:
+        lines.append(f"polarisation: {_short(result['polarisation_mV'], 'mV')} "
+                     + ("(instant-off − native)" if result.get("polarisation_from") == "native" else "(as given)"))
+    if result.get("ir_drop_V") is not None:
+        lines.append(f"IR drop at the post (on − instant-off): {_short(result['ir_drop_V'], 'V')}")
+    if result.get("ir_drop_method"):
+        size = "" if result.get("ir_drop_mV") is None else f", {_short(result['ir_drop_mV'], 'mV')} subtracted"
+        lines.append(f"IR drop considered: {result['ir_drop_method']}{size}")
+    for c in result.get("criteria") or []:
+        state = ("met" if c.get("met") else "not met" if c.get("met") is False else
+                 "value met, IR drop not considered" if c.get("value_met") else
+                 "not checked" if c.get("role") == "not checked" else "not judged")
+        margin = f"; {c['margin_text']}" if c.get("margin_text") else ""
+        if c.get("role") == "limit":  # its margin says within or beyond
+            state, margin = ("beyond the limit" if c.get("exceeded") else "within the limit"), ""
+            state = c.get("margin_text") or state
+        lines.append(f"criterion: {c['name']} ({c['standard']}, {c['clause']}): {state}{margin}")
+    return lines
+
+
+#: command -> the readable lines it adds after its headline fields
+EXTRA = {"joint": _at_service, "cp": _cp_post,
+         "matrix": lambda r: _matrix_service(r),
+         "measured": lambda r: _at_service_measured((r.get("published") or {}).get("at_service"))}
+
+
+def _matrix_service(result):
+    """A pair table at the service conditions: the conditions, each pair's mixed-potential answer, warnings."""
+    if not result.get("service_conditions"):
+        return [f"service warning: {w['message']}" for w in result.get("service_warnings") or []]
+    lines = _conditions(result["service_conditions"])
+    mats = result.get("materials") or []
+    for (a, b, *_), row in zip(result.get("pairs") or [], result.get("service_pairs") or []):
+        answer = "no polarization data" if row is None else (
+            f"anode {mats[row[0]]}, couple potential {_short(row[1], 'V vs SCE')}, attack {_short(row[2], 'mm/y')} "
+            f"(uncoupled {_short(row[3], 'mm/y')})")
+        lines.append(f"at the service conditions, {mats[a]} with {mats[b]}: {answer}")
+    if result.get("service_pairs_reason"):
+        lines.append(f"at the service conditions: {result['service_pairs_reason']}")
+    return lines + [f"service warning: {w['message']}" for w in result.get("service_warnings") or []]
+
+
+def _at_service_measured(at):
+    """The published judgement of a measured joint at its service conditions (None: none)."""
+    if not at:
+        return []
+    return [f"published, at the service conditions (mixed potential): anode {at['anode']}, couple potential "
+            f"{_short(at['couple_potential_V_SCE'], 'V vs SCE')}, attack {_short(at['attack_mm_per_year'], 'mm/y')}"
+            ] + _conditions(at.get("service_conditions"))
+
+
 def format_text(command, result):
     """Human-readable text of a result: headline numbers, derivation, warnings, sources."""
     lines = []
     for key in HEADLINE.get(command, []):
         if key in result:
             lines.append(f"{key}: {_fmt(result[key])}")
+    lines += EXTRA[command](result) if command in EXTRA else []
     if command == "eph":  # the lines as a table: one row per pH, one column per half-reaction
         cols = result.get("lines") or []
         lines.append("E vs SHE [V] at each pH:")

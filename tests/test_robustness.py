@@ -41,6 +41,8 @@ from calc.activity import VALID_I_MAX
 from calc.conditions import ACTIVITY_MAX, PRESSURE_MAX_ATM
 from oracles import nernst_slope_V
 from calc.field.criteria import READING_KINDS, catalogue
+from calc.field.onreading import NOT_CONSIDERED, ir_methods
+from calc import cliservice
 
 #: the CP structure and setting ids of the shipped data (data/cp_structures.yaml, cp_settings.yaml)
 STRUCTURES = [r["id"] for r in catalogue("cp_structures")]
@@ -468,6 +470,19 @@ COND_OPTS = [
     ("--pH", num_arg(-2, 16, [7])), ("--pressure", pairs(["O2", "H2", "Cl2"], num_arg(1e-6, 50, [0.21]))),
     ("--json", SWITCH),
 ]
+#: the service conditions of joint, matrix and measured, and the test post's options of cp (calc.cliservice)
+SERVICE_OPTS = [
+    ("--temp", num_arg(0, 100)), ("--salinity", num_arg(1e-3, 45, [35])), ("--chloride", num_arg(1e-3, 25000)),
+    ("--o2", num_arg(0, 14, [0])), ("--aeration", F(st.sampled_from(["air-saturated", "deaerated"]), ARG_TEXT)),
+    ("--velocity", num_arg(0, 30, [0])), ("--geometry", F(st.sampled_from(["pipe", "surface", "still"]), ARG_TEXT)),
+    ("--diameter", num_arg(1e-3, 10, [0.1])), ("--length", num_arg(1e-3, 1000, [1])), ("--pH", num_arg(-2, 16, [7])),
+    ("--conductivity", num_arg(1e-4, 20, [5])), ("--anode-area", num_arg(0.01, 1e8, [10])),
+]
+POST_OPTS = [
+    ("--on-reading", num_arg(-2, 1, [-1.0])), ("--native-reading", num_arg(-2, 1, [-0.6])),
+    ("--ir-drop-method", F(st.sampled_from([NOT_CONSIDERED, *sorted(ir_methods())]), ARG_TEXT)),
+    ("--ir-drop", num_arg(0, 5000, [50])), ("--unit", F(st.sampled_from(["V", "mV"]), ARG_TEXT)),
+]
 #: command -> (positional arguments, required options, optional options, options of which one only)
 COMMANDS = {
     "electrode": ([arg_id(HALF_IDS)], [], COND_OPTS, ("--ionic-strength", "--env")),
@@ -483,11 +498,12 @@ COMMANDS = {
     "activity": ([arg_id(ION_NAMES)], [("--ionic-strength", num_arg(0, 5, list(VALID_I_MAX.values())))],
                  [("--model", MODEL_ARG), ("--temp", num_arg(0, 100)), ("--json", SWITCH)], ()),
     "joint": ([arg_id(MATERIAL_IDS), arg_id(MATERIAL_IDS)], [("--env", arg_id(ENV_IDS))],
-              [("--area-ratio", num_arg(1e-3, 1e3, [1])), ("--json", SWITCH)], ()),
+              [("--area-ratio", num_arg(1e-3, 1e3, [1])), *SERVICE_OPTS, ("--json", SWITCH)], ("--salinity", "--chloride")),
     "matrix": ([], [("--env", arg_id(ENV_IDS))],
                [("--materials", F(st.lists(st.sampled_from(MATERIAL_IDS), min_size=1, max_size=5).map(",".join),
                                   st.one_of(ARG_TEXT, st.lists(arg_id(MATERIAL_IDS).any, max_size=4).map(",".join)))),
-                ("--csv", SWITCH), ("--json", SWITCH)], ()),
+                ("--csv", SWITCH), *[o for o in SERVICE_OPTS if o[0] != "--anode-area"], ("--json", SWITCH)],
+               ("--salinity", "--chloride")),
     "rate": ([], [("--material", arg_id(MATERIAL_IDS)), ("--current-density", num_arg(0, 1e5, [1]))],
              [("--json", SWITCH)], ()),
     "measured": ([], [("--a", LABEL_ARG), ("--a-reading", num_arg(-2, 1, [-0.85])), ("--b", LABEL_ARG),
@@ -495,13 +511,14 @@ COMMANDS = {
                       ("--env", arg_id(ENV_IDS))],
                  [("--temp", num_arg(0, 100)), ("--salinity", num_arg(1e-3, 45, [35])),
                   ("--chloride", num_arg(1e-3, 25000, [19000])), ("--a-material", arg_id(MATERIAL_IDS)),
-                  ("--b-material", arg_id(MATERIAL_IDS)), ("--json", SWITCH)], ("--salinity", "--chloride")),
+                  ("--b-material", arg_id(MATERIAL_IDS)), *SERVICE_OPTS[3:], ("--json", SWITCH)],
+                 ("--salinity", "--chloride")),
     "cp": ([num_arg(-2, 1, [-0.85, -1.05])],
            [("--structure", arg_id(sorted(STRUCTURES))), ("--setting", arg_id(sorted(SETTINGS))),
             ("--electrode", arg_id(REF_IDS)), ("--kind", F(st.sampled_from(READING_KINDS), ARG_TEXT))],
            [("--temp", num_arg(0, 100)), ("--structure-temp", num_arg(0, 100)), ("--polarisation", num_arg(-500, 500)),
-            ("--salinity", num_arg(1e-3, 45, [35])), ("--chloride", num_arg(1e-3, 25000)), ("--json", SWITCH)],
-           ("--salinity", "--chloride")),
+            ("--salinity", num_arg(1e-3, 45, [35])), ("--chloride", num_arg(1e-3, 25000)), *POST_OPTS,
+            ("--json", SWITCH)], ("--salinity", "--chloride")),
     "mixed": ([], [], [("--json", SWITCH)], ()),  # its request comes on standard input (none here)
     "passivity": ([], [("--cr", num_arg(0, 40, [22])), ("--mo", num_arg(0, 10, [3])), ("--n", num_arg(0, 1, [0.17]))],
                   [("--w", num_arg(0, 5)), ("--temp", num_arg(0, 100)), ("--salinity", num_arg(1e-3, 45, [35])),
@@ -513,6 +530,8 @@ COMMANDS = {
        for name, opts in _DESIGN_CLI.items()},
 }
 assert sorted(COMMANDS) == sorted(api.ENTRY_POINTS), "every calculation command has an argument strategy here"
+assert {o[0] for o in SERVICE_OPTS + POST_OPTS} == {v[0] for v in (*cliservice.SERVICE_OPTIONS.values(),
+                                                               *cliservice.POST_OPTIONS.values())}, "every option"
 
 
 @st.composite
