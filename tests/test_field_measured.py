@@ -142,3 +142,16 @@ def test_bad_measured_input_names_the_field(change, field):
     req.update(change)
     out = api.call("measured", req)
     assert out["ok"] is False and out["error"]["field"] == field, out
+
+
+def test_service_conditions_without_the_materials_are_not_silently_ignored():
+    """Conditions act only on the published-series judgement; without both materials the result says so."""
+    from calc import api
+
+    req = {"a_name": "pile", "a_reading_V": -0.70, "b_name": "ladder", "b_reading_V": -0.66, "electrode": "SCE",
+           "env": "seawater-flowing"}
+    plain = api.call("measured", req)["result"]
+    flowing = api.call("measured", dict(req, velocity_m_s=3.0))["result"]
+    assert not [w for w in plain["warnings"] if w["field"] == "a_material"]
+    said = [w["message"] for w in flowing["warnings"] if w["field"] == "a_material"]
+    assert said and "velocity_m_s" in said[0] and "both materials" in said[0]

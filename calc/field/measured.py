@@ -297,6 +297,10 @@ def measured_joint(a_name, a_reading_V, b_name, b_reading_V, electrode, env, tem
             for part, name in (("a", a_material), ("b", b_material)) if name is not None}
     state_notes, state_fail = _state_check(d, ds, recs, sce, labels, basis.allowable_V)
     tier = _tier(d, envrec, basis, delta, state_fail)
+    if service and not recs:  # conditions act only on the published-series judgement, which needs the materials
+        d.warn("a_material", "the service conditions given (" + ", ".join(sorted(service)) + ") are used only for "
+               "the judgement from the published series at those conditions, which needs both materials: give "
+               "a_material and b_material, or leave the conditions out")
     conditions = dict(service or {})
     conditions.update({k: v for k, v in (("temp_C", temp_C), ("salinity", salinity),
                                           ("chloride_mg_per_L", chloride_mg_per_L)) if v is not None})
