@@ -1,4 +1,6 @@
 // Small SVG charts drawn by our own code (no library, works offline). Text via textContent.
+import { minusSigns } from "./math.mjs";
+
 const NS = "http://www.w3.org/2000/svg";
 
 function s(tag, attrs, text) {
@@ -8,9 +10,9 @@ function s(tag, attrs, text) {
   return el;
 }
 
-// A number as a label: a true minus sign, and no "−0" (a tick at zero reads 0).
+// A number as a label: the site's minus rule (math.mjs), and no "−0" (a tick at zero reads 0).
 function minus(text) {
-  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text.replace("-", "−");
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : minusSigns(text);
 }
 
 function niceTicks(lo, hi, count = 5) {
