@@ -3,8 +3,8 @@ basis, what to do about it (mitigations), closer-matched materials (alternatives
 
 The mitigations are the usual practice of the trade for dissimilar-metal joints (common
 practice): break the metal path, coat the cathode (never the anode alone), make the small part
-the noble one, keep the electrolyte out, and, in an immersed electrolyte, cathodic protection
-designed under the applicable standard.
+the noble one, keep the electrolyte out, and, in an immersed electrolyte or in soil, cathodic
+protection designed under the applicable standard.
 """
 
 import weakref
@@ -216,6 +216,23 @@ def sacrificial_by_design(anode_rec, cathode_rec, basis):
 # mitigations
 
 
+#: the cathodic-protection advice for a joint buried in soil, the classic case of cathodic protection.
+#: Its basis, read: 49 CFR 192.455(a)(2) (each buried or submerged gas pipeline installed after
+#: July 31, 1971 must have a cathodic protection system, placed in operation within a year of
+#: construction; (b) and (c) except a demonstrated non-corrosive environment, (d) not for coated
+#: pipe) and 49 CFR 192.453 (designed by or under a person qualified in pipeline corrosion control).
+SOIL_CP_TEXT = (
+    "Protect the joint cathodically: buried steel is the classic case. Galvanic anodes (magnesium or zinc) or an "
+    "impressed-current groundbed make both metals cathodes, together with the structure's coating. It is a design "
+    "of its own: follow the applicable standard (ISO 15589-1, NACE SP0169, EN 12954) and have it designed by a "
+    "qualified corrosion professional (over-protection can embrittle high-strength steel and lift coatings; the "
+    "current can corrode neighbouring buried metal).")
+SOIL_CP_REASON = ("the soil around a buried joint reaches both parts, so cathodic protection protects the whole "
+                  "joint; United States regulation requires it on buried or submerged gas pipelines installed after "
+                  "July 31, 1971, unless tests show the soil is not corrosive (49 CFR 192 Subpart I, §192.455), "
+                  "designed by or under a person qualified in corrosion control (§192.453)")
+
+
 def mitigations(judgement, basis, area_ratio, area_given, names, have_alternatives, passive_drop_V):
     """What to do about a joint, each with the reason it applies here.
 
@@ -288,6 +305,8 @@ def mitigations(judgement, basis, area_ratio, area_given, names, have_alternativ
             "applicable standard and have it designed by a qualified corrosion professional (over-protection can "
             "embrittle high-strength steel and lift coatings).",
             f"{basis.env_name} is an immersed electrolyte, where cathodic protection reaches the whole joint")
+    elif tier == "unsuited" and basis.electrolyte == "soil":
+        add("cathodic-protection", SOIL_CP_TEXT, SOIL_CP_REASON)
     if tier == "unsuited" and have_alternatives:
         add("closer-match",
             "Choose a closer-matched pair from the alternatives listed below.",

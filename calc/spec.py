@@ -12,6 +12,7 @@ forms from it, the build computes their answers in advance from it
 import copy
 
 from . import bounds
+from .cpdesign import limits as cp_limits
 
 #: calculator name -> the request its page sends on opening (demonstration values, ours)
 OPENINGS = {
@@ -88,12 +89,14 @@ def page_spec():
     """The page's copy of the bounds and the opening requests, as plain JSON-ready data.
 
     Returns:
-        ``{"bounds": {...}, "openings": {...}, "form": {...}}``
+        ``{"bounds": {...}, "cp_bounds": {...}, "openings": {...}, "form": {...}}`` (``cp_bounds``: the
+        bounds of the cathodic-protection design inputs, :mod:`calc.cpdesign.limits`)
 
     References:
         Project convention (DESIGN.md: one rule, one place; nothing parses JavaScript as text).
 
     >>> sorted(page_spec())
-    ['bounds', 'form', 'openings']
+    ['bounds', 'cp_bounds', 'form', 'openings']
     """
-    return {"bounds": bounds.as_data(), "openings": copy.deepcopy(OPENINGS), "form": copy.deepcopy(FORM)}
+    return {"bounds": bounds.as_data(), "cp_bounds": cp_limits.as_data(), "openings": copy.deepcopy(OPENINGS),
+            "form": copy.deepcopy(FORM)}

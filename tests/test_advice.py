@@ -43,6 +43,20 @@ def test_no_cathodic_protection_advice_in_air(ds):
     assert "cathodic-protection" not in ids and "seal" in ids and "isolate" in ids
 
 
+def test_cathodic_protection_advice_for_a_joint_in_soil(ds):
+    # Buried steel is the classic case of cathodic protection: 49 CFR 192.455(a)(2) requires a cathodic
+    # protection system on buried or submerged gas pipelines installed after July 31, 1971 (read), and
+    # 49 CFR 192.453 its design by or under a person qualified in corrosion control (read).
+    r = J.joint_entry({"a": "carbon steel", "b": "copper", "env": "buried-soil"})
+    assert r["verdict"] == "unsuited"
+    cp = next(m for m in r["mitigations"] if m["id"] == "cathodic-protection")
+    assert "magnesium or zinc" in cp["text"] and "groundbed" in cp["text"] and "qualified" in cp["text"]
+    assert "49 CFR 192" in cp["reason"] and "§192.455" in cp["reason"] and "§192.453" in cp["reason"]
+    # the immersed wording stays for water, the soil wording is for soil only
+    sea = J.joint_entry({"a": "carbon steel", "b": "copper", "env": SEA})
+    assert "49 CFR" not in next(m for m in sea["mitigations"] if m["id"] == "cathodic-protection")["reason"]
+
+
 def test_alternatives_pass_against_the_kept_partner(ds):
     r = J.joint_entry({"a": "carbon steel", "b": "316", "env": SEA})
     assert [x["replace"] for x in r["alternatives"]] == [r["a"], r["b"]]

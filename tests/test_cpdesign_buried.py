@@ -190,4 +190,4 @@ def test_bad_input_is_refused_naming_the_field(change, field):
 def test_unknown_alloy_names_the_closest():
     with pytest.raises(InputError) as exc:
         buried_entry(dict(PIPELINE_17LB, alloy="magnesum"))
-    assert "magnesium" in str(exc.value)
+    assert "Magnesium alloy" in str(exc.value)  # the closest by name, not by id

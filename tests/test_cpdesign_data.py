@@ -153,7 +153,7 @@ def test_unknown_names_get_the_closest():
 def test_paralleling_factor_refuses_a_count_the_table_lacks():
     with pytest.raises(InputError) as exc:
         paralleling_factor(11)
-    assert "sunde" in str(exc.value)
+    assert "Sunde's formula" in str(exc.value)
 
 
 # ------------------------------------------------------------------ the values read, against their documents

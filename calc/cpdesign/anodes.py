@@ -25,6 +25,12 @@ from .limits import check
 
 #: the resistance formulas, by shape
 SHAPES = ("standoff", "short-standoff", "flush", "short-flush", "bracelet", "plate")
+#: shape -> its name in words
+SHAPE_NAMES = {"standoff": "long slender stand-off", "short-standoff": "short slender stand-off",
+               "flush": "long flush-mounted", "short-flush": "short flush-mounted", "bracelet": "bracelet",
+               "plate": "plate"}
+#: the shapes as a message lists them: the word to give, then the shape in words
+SHAPES_TEXT = ", ".join(k if k == v else f"{k} ({v})" for k, v in SHAPE_NAMES.items())
 #: a stand-off anode is "long" from a length of 4 radii, a flush one from 4 widths (DNV-RP-B401, recalled)
 LONG_RATIO = 4.0
 #: the consumed length of a long stand-off anode, as a share of its initial length (DNV-RP-B401, from memory)
@@ -190,7 +196,7 @@ def _radius(dims, prefix):
         return check("radius_m", dims["radius_m"], prefix + "radius_m")
     if dims.get("periphery_m") is not None:
         return check("periphery_m", dims["periphery_m"], prefix + "periphery_m") / (2.0 * math.pi)
-    raise InputError(prefix + "radius_m", None, "the anode radius in m (or periphery_m, the cross-section's periphery)")
+    raise InputError(prefix + "radius_m", None, "the anode radius in m (or the periphery of its cross-section)")
 
 
 def _need(dims, key, bound, prefix, words):
@@ -224,10 +230,10 @@ def resistance(shape, rho, dims, prefix="anode.", rule=None):
         r = _radius(dims, prefix)
         long = length >= LONG_RATIO * r
         if shape == "standoff" and not long:
-            warnings.append(f"length {fmt(length)} m is below {LONG_RATIO:g} radii: the short stand-off formula "
+            warnings.append(f"the anode length {fmt(length)} m is below {LONG_RATIO:g} radii: the short stand-off formula "
                             "is used")
         if shape == "short-standoff" and long:
-            warnings.append(f"length {fmt(length)} m is {LONG_RATIO:g} radii or more: the long stand-off formula "
+            warnings.append(f"the anode length {fmt(length)} m is {LONG_RATIO:g} radii or more: the long stand-off formula "
                             "is used")
         if long:
             rule = rule or record("cp_anode_types", "long-slender-standoff", "anode_type")["standoff"]
@@ -246,15 +252,15 @@ def resistance(shape, rho, dims, prefix="anode.", rule=None):
         length = _need(dims, "length_m", "length_m", prefix, "the anode length in m")
         width = _need(dims, "width_m", "width_m", prefix, "the anode width in m")
         if length < LONG_RATIO * width:
-            warnings.append(f"length {fmt(length)} m is below {LONG_RATIO:g} widths: the anode is short; the area "
-                            "formula (short-flush) suits it better")
+            warnings.append(f"the anode length {fmt(length)} m is below {LONG_RATIO:g} widths: the anode is short; the area "
+                            "formula of a short flush-mounted anode suits it better")
         return (flush_long(rho, length, width), "R = ρ/(2S), S = (L + W)/2 (Lloyd)",
                 f"R = {fmt(rho)} Ω·m/(2 × ({fmt(length)} + {fmt(width)}) m/2)", warnings)
     if shape in ("short-flush", "bracelet", "plate"):
         area = _need(dims, "area_m2", "anode_area_m2", prefix, "the exposed anode area in m²")
         return (compact(rho, area), "R = 0.315·ρ/√A (McCoy)", f"R = 0.315 × {fmt(rho)} Ω·m/√({fmt(area)} m²)",
                 warnings)
-    raise InputError(prefix + "shape" if prefix else "shape", shape, "one of " + ", ".join(SHAPES))
+    raise InputError(prefix + "shape" if prefix else "shape", shape, "a shape of anode: " + SHAPES_TEXT)
 
 
 #: request fields of ``anode-resistance``
@@ -278,17 +284,17 @@ def anode_resistance_entry(request):
     >>> round(r["resistance_ohm"], 4)
     0.1575
     """
-    read(request, "anode-resistance", {"shape": "the anode shape: " + ", ".join(SHAPES),
+    read(request, "anode-resistance", {"shape": "the anode shape: " + SHAPES_TEXT,
                                        "resistivity_ohm_m": "the electrolyte resistivity in Ω·m"}, RESISTANCE_FIELDS)
     shape = request["shape"]
     if shape not in SHAPES:
-        raise InputError("shape", shape, "one of " + ", ".join(SHAPES))
+        raise InputError("shape", shape, "a shape of anode: " + SHAPES_TEXT)
     rho = check("resistivity_ohm_m", request["resistivity_ohm_m"])
     d = Derivation()
     value, formula, text, warns = resistance(shape, rho, request, prefix="")
     for w in warns:
         d.warn(None, w)
-    d.step(f"Anode resistance ({shape})", formula, text, f"R = {fmt(value, 5)} Ω")
+    d.step(f"Anode resistance ({SHAPE_NAMES[shape]} anode)", formula, text, f"R = {fmt(value, 5)} Ω")
     rec = record("cp_anode_types", "long-slender-standoff", "anode_type")
     d.cite(rec["standoff"]["source"] if shape == "standoff" else rec["source"])
     return {"resistance_ohm": value, "shape": shape, "formula": formula, "steps": d.steps, "warnings": d.warnings,

@@ -18,7 +18,7 @@ from ..derivation import Derivation, fmt
 from ..errors import InputError
 from ..requests import read
 from .cautions import cautions
-from .catalogue import alloy_group, row_source, table
+from .catalogue import alloy_group, names_of, row_source, table
 from .limits import check
 from .mass import count_for, handbook_life, handbook_mass
 from .units import LB_KG, ohm_cm
@@ -114,7 +114,7 @@ def _constant(request, family, d):
         raise InputError("coating", coating, "well-coated or bare (poorly coated)")
     if request.get("output_constant") is not None:
         if request.get("coating") is not None:
-            d.warn("coating", "output_constant is given, so the coating (which only chooses C) is not used")
+            d.warn("coating", "the output constant C is given, so the coating (which only chooses C) is not used")
         return check("constant_C", request["output_constant"], "output_constant")
     tab = table("output-constant")
     rows = [r for r in tab["rows"] if r["alloy"] == family]
@@ -135,21 +135,21 @@ def _anode(request, d):
     if request.get("anode") is not None:
         if request.get("size_factor") is not None or request.get("anode_mass_kg") is not None:
             raise InputError("size_factor", request.get("size_factor"),
-                             "anode or size_factor with anode_mass_kg, not both")
+                             "an anode of the handbook's table, or a size factor with the anode mass, not both")
         tab = table("anode-size-factor")
-        ids = [r["id"] for r in tab["rows"]]
         given = request["anode"].strip().lower() if isinstance(request["anode"], str) else None
         row = next((r for r in tab["rows"] if r["id"] == given), None)
         if row is None:
-            raise InputError("anode", request["anode"], "one of the handbook's anodes: " + ", ".join(ids))
+            raise InputError("anode", request["anode"], "one of the handbook's anodes: " + "; ".join(
+                f"{r['mass_lb']} lb {r['group']}" for r in tab["rows"]))
         d.cite(tab["source"])
         mass = row["mass_lb"] * LB_KG
         d.step("Anode size factor", "f of the anode (UFC 3-570-02A Table C-4)", f"{row['mass_lb']} lb, {row['group']}",
                f"f = {fmt(row['f'])}, anode mass {fmt(mass, 4)} kg")
         return float(row["f"]), mass, row["id"]
     if request.get("size_factor") is None:
-        raise InputError("anode", None, "an anode of the handbook's table (e.g. 17-lb-packaged) or size_factor with "
-                                        "anode_mass_kg")
+        raise InputError("anode", None, "an anode of the handbook's table (e.g. the 17 lb standard packaged one), or a "
+                                        "size factor with the anode mass")
     f = check("factor", request["size_factor"], "size_factor")
     mass = (check("anode_mass_kg", request["anode_mass_kg"], "anode_mass_kg")
             if request.get("anode_mass_kg") is not None else None)
@@ -178,11 +178,11 @@ def read_current(request, d):
     area_given = request.get("area_m2") is not None
     if request.get("current_A") is not None:
         if area_given:
-            raise InputError("area_m2", request["area_m2"], "current_A or area_m2 with its density, not both")
+            raise InputError("area_m2", request["area_m2"], "the current required, or the surface area with its current density, not both")
         return check("current_A", request["current_A"])
     if not area_given:
-        raise InputError("current_A", None, "the current required in A, or area_m2 with current_density_mA_per_m2 "
-                                            "and coating_efficiency")
+        raise InputError("current_A", None, "the current required in A, or the surface area with the current density "
+                                            "of bare steel and the coating efficiency")
     area = check("area_m2", request["area_m2"])
     if request.get("current_density_mA_per_m2") is None:
         raise InputError("current_density_mA_per_m2", None, "the current density of bare steel in mA/m²")
@@ -194,6 +194,11 @@ def read_current(request, d):
     d.step("Current required", "I = A·I'·(1 − CE)", f"I = {fmt(area)} m² × {fmt(dens)} mA/m² × (1 − {fmt(ce)})",
            f"I = {fmt(ma, 5)} mA")
     return ma / 1000.0
+
+
+def _alloy_names():
+    """The anode alloys of the handbook's method, by name."""
+    return names_of("cp_anode_alloys", lambda rec: rec["id"] in ALLOY_FAMILY)
 
 
 def buried_entry(request):
@@ -221,14 +226,14 @@ def buried_entry(request):
     (26.7, 32.2, 33)
     """
     read(request, "buried", {"resistivity_ohm_m": "the soil resistivity in Ω·m", "alloy": "the anode alloy: "
-                             + ", ".join(ALLOY_FAMILY), "life_years": "the design life in years"}, FIELDS)
+                             + _alloy_names(), "life_years": "the design life in years"}, FIELDS)
     d = Derivation()
     life = check("life_years", request["life_years"])
     rho = check("resistivity_ohm_m", request["resistivity_ohm_m"])
     rec, bur = alloy_group(request["alloy"], "buried")
     family = ALLOY_FAMILY.get(rec["id"])
     if family is None:
-        raise InputError("alloy", request["alloy"], "one of " + ", ".join(ALLOY_FAMILY))
+        raise InputError("alloy", request["alloy"], "an anode alloy of the handbook's method: " + _alloy_names())
     d.cite(bur["source"])
     amps = read_current(request, d)
     s, e = bur["consumption_kg_per_A_yr"], bur["efficiency"]

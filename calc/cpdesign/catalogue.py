@@ -6,8 +6,18 @@ of ``data/cp_anode_alloys.yaml``, ``cp_anode_types.yaml``, ``cp_coatings.yaml``,
 ``cp_current_densities.yaml`` and ``cp_design_tables.yaml``, each with its source and confidence.
 """
 
+import re
+
 from ..dataset import current
 from ..errors import DataError, InputError
+
+#: catalogue -> what its entries are, for the message about an unknown one
+KINDS = {"cp_anode_alloys": "an anode material of the dataset", "cp_anode_types": "an anode type of the dataset",
+         "cp_coatings": "a coating category of the dataset, or bare", "cp_structures": "a structure material of the dataset",
+         "cp_criteria": "a protection criterion of the dataset", "cp_current_densities": "a climatic region of the dataset"}
+
+#: use of an anode material -> its words
+USES = {"seawater": "seawater", "buried": "buried structures", "impressed": "impressed current"}
 
 
 def record(kind, name, field):
@@ -27,7 +37,51 @@ def record(kind, name, field):
     >>> record("cp_coatings", "Category II", "coating")["id"]
     'category-ii'
     """
-    return current().get(kind, name, field)
+    try:
+        return current().get(kind, name, field)
+    except InputError as exc:  # the dataset's words name the catalogue and its ids: say it by names
+        close = [short_name(current().get(kind, i)) for i in exc.hint[len("closest: "):].split(", ")
+                 ] if exc.hint.startswith("closest: ") else []
+        raise InputError(field, name, KINDS.get(kind, "an entry of the dataset"),
+                         ("closest: " + "; ".join(close)) if close else "see the reference pages for the list") from None
+
+
+def short_name(rec):
+    """A record's name without its explanation: "Category II" of "Category II: primer and ...".
+
+    Args:
+        rec: a catalogue record [unitless]
+
+    Returns:
+        the name up to its first colon or bracket
+
+    References:
+        Presentation rule of the project (users read names, not ids).
+
+    >>> short_name({"id": "x", "name": "Zinc alloy (any)"})
+    'Zinc alloy'
+    """
+    return re.split(r": | \(", rec.get("name") or rec["id"], maxsplit=1)[0]
+
+
+def names_of(kind, keep=lambda rec: True):
+    """The short names of a catalogue's records, joined for a message ("A, B or C").
+
+    Args:
+        kind: the catalogue, e.g. ``cp_anode_alloys`` [unitless]
+        keep: which records to name [unitless]
+
+    Returns:
+        the names in file order, the last joined by "or"
+
+    References:
+        Presentation rule of the project (users read names, not ids).
+
+    >>> names_of("cp_coatings").endswith("or Category III")
+    True
+    """
+    names = [short_name(r) for r in current().records(kind) if keep(r)]
+    return names[0] if len(names) == 1 else ", ".join(names[:-1]) + " or " + names[-1]
 
 
 def alloy_group(name, group, field="alloy"):
@@ -50,8 +104,8 @@ def alloy_group(name, group, field="alloy"):
     """
     rec = record("cp_anode_alloys", name, field)
     if not isinstance(rec.get(group), dict):
-        fits = [r["id"] for r in current().records("cp_anode_alloys") if isinstance(r.get(group), dict)]
-        raise InputError(field, name, f"an anode material with {group} design values: one of {', '.join(fits)}")
+        fits = names_of("cp_anode_alloys", lambda r: isinstance(r.get(group), dict))
+        raise InputError(field, name, f"an anode material with design values for {USES[group]}: {fits}")
     return rec, rec[group]
 
 
@@ -167,4 +221,4 @@ def paralleling_factor(count, field="count"):
             return row["P"], row
     counts = ", ".join(str(r["count"]) for r in tab["rows"])
     raise InputError(field, count, f"a number of anodes the handbook's paralleling table holds ({counts})",
-                     "or choose the paralleling method 'sunde'")
+                     "or choose Sunde's formula for the paralleling")

@@ -4,7 +4,8 @@ Each calculator adds the ones for its method (offshore galvanic anodes, buried g
 impressed current) to the common ones.
 """
 
-#: said beside every design result
+#: said beside every design result: the governing standard and a qualified engineer, over-protection
+#: (hydrogen embrittlement of high-strength steels, coatings), interference with other structures
 COMMON = (
     "Safety-relevant: cathodic protection keeps pipelines, tanks, jetties, ships and offshore structures whose "
     "failure can hurt people and the environment. These are design estimates from published hand methods; the "
@@ -13,6 +14,10 @@ COMMON = (
     "Over-protection harms: potentials more negative than the structure's limit can embrittle high-strength "
     "steels by hydrogen (and some stainless and duplex steels), and can blister or disbond coatings. Check the "
     "anode's closed-circuit potential, or the rectifier setting, against the limit of the standard.",
+    "Interference: a cathodic-protection system changes the potentials of other metal in the same soil or water "
+    "(pipelines, cables, tanks, piles, sheet piling, moored vessels); where its current leaves such a structure, "
+    "that structure corrodes there. Find the neighbouring structures, test them once the system is energised, and "
+    "agree bonds or other measures with their owners.",
     "Several design values of the dataset are recalled, not re-read in the standard; each is flagged in its "
     "record and in the sources: check them against the edition in use before relying on them.",
 )
@@ -26,12 +31,11 @@ BURIED = (
     "Buried structures: design to ISO 15589-1, NACE SP0169 or EN 12954 as applicable; the anode output equation "
     "assumes a soil resistivity above 500 Ω·cm and about 10 ft (3 m) between anode and structure, and measured "
     "soil resistivity along the route governs.",
-    "Interference: anodes and bonds can change the potentials of neighbouring buried structures; test them.",
 )
 #: impressed-current groundbeds
 IMPRESSED = (
-    "Impressed current: a groundbed drives current through the soil and can corrode other buried metal "
-    "(interference); test neighbouring pipelines, cables and tanks, and agree bonds with their owners.",
+    "Impressed current: a groundbed drives far more current through the soil than galvanic anodes and so "
+    "interferes more: site it away from other buried metal, and test neighbouring pipelines, cables and tanks.",
     "Electrical safety: rectifiers are mains equipment; anode cables and groundbeds can carry dangerous voltages. "
     "Install to the electrical code with the anode lead and the structure connection the right way round: a "
     "reversed connection makes the structure the anode and corrodes it fast.",

@@ -12,9 +12,9 @@ from ..derivation import Derivation, fmt
 from ..errors import InputError
 from ..field.criteria import criteria_for
 from ..requests import read
-from .anodes import consumed_standoff, output, resistance
+from .anodes import SHAPE_NAMES, consumed_standoff, output, resistance
 from .cautions import cautions
-from .catalogue import alloy_group, record
+from .catalogue import alloy_group, names_of, record, short_name
 from .demand import STAGES
 from .limits import check
 from .mass import count_for, net_mass
@@ -34,6 +34,11 @@ ANODE_FIELDS = ("net_mass_kg", "length_m", "radius_m", "periphery_m", "width_m",
 DIMENSIONS = ("length_m", "radius_m", "periphery_m", "width_m", "area_m2")
 
 
+def _sea(rec):
+    """True for an anode material with seawater design values."""
+    return isinstance(rec.get("seawater"), dict)
+
+
 def _demand(request, life, d):
     """The initial, mean and final demand [A], and the zones they came from (None in direct mode)."""
     if request.get("zones") is not None:
@@ -43,7 +48,8 @@ def _demand(request, life, d):
         zones = read_zones(request["zones"])
         region = region_of(request, any(z[1] == "seawater" for z in zones))
         if region is not None:
-            d.step("Climatic region", "by the surface-water temperature (or as named)", region["name"], region["id"])
+            d.step("Climatic region", "by the surface-water temperature (or as named)", region["name"],
+                   short_name(region))
         rows = [zone_demand(z, region, life, d, field=f"zones[{i}].coating") for i, z in enumerate(zones)]
         total = {s: sum(r["current_A"][s] for r in rows) for s in STAGES}
         d.step("Current demand of the structure", "I = Σ zones",
@@ -51,7 +57,7 @@ def _demand(request, life, d):
                ", ".join(f"I_{s} = {fmt(total[s], 5)} A" for s in STAGES))
         return total, rows
     if request.get("current_mean_A") is None:
-        raise InputError("zones", None, "the structure's zones, or current_mean_A (and current_final_A) directly")
+        raise InputError("zones", None, "the structure's zones, or the mean design current (and the final one) directly")
     total = {s: (check("current_A", request[f"current_{s}_A"], f"current_{s}_A")
                  if request.get(f"current_{s}_A") is not None else None) for s in STAGES}
     if total["final"] is None:
@@ -66,7 +72,7 @@ def _alloy(request, d):
     direct = request.get("capacity_Ah_per_kg") is not None or request.get("closed_circuit_V") is not None
     if direct and request.get("alloy") is not None:
         raise InputError("capacity_Ah_per_kg", request.get("capacity_Ah_per_kg"),
-                         "alloy or capacity_Ah_per_kg with closed_circuit_V, not both")
+                         "an anode alloy, or its capacity with its closed-circuit potential, not both")
     if request.get("alloy") is not None:
         rec, sea = alloy_group(request["alloy"], "seawater")
         d.cite(sea["source"])
@@ -75,7 +81,8 @@ def _alloy(request, d):
                f"vs {sea['electrode']} ({sea['confidence']})")
         return float(sea["capacity_Ah_per_kg"]), float(sea["closed_circuit_V"]), rec["id"]
     if request.get("capacity_Ah_per_kg") is None:
-        raise InputError("alloy", None, "an anode alloy (al-zn-in, zinc) or capacity_Ah_per_kg directly")
+        raise InputError("alloy", None, f"an anode alloy ({names_of('cp_anode_alloys', _sea)}) or its "
+                                         "electrochemical capacity directly")
     eps = check("capacity_Ah_per_kg", request["capacity_Ah_per_kg"])
     e_a = (check("potential_V", request["closed_circuit_V"], "closed_circuit_V")
            if request.get("closed_circuit_V") is not None else None)
@@ -85,22 +92,24 @@ def _alloy(request, d):
 def _anode_type(request, d):
     """(utilisation, shape or None, type record or None)."""
     if request.get("anode_type") is not None and request.get("utilisation") is not None:
-        raise InputError("utilisation", request["utilisation"], "anode_type or utilisation, not both")
+        raise InputError("utilisation", request["utilisation"], "an anode type or a utilisation factor, not both")
     if request.get("anode_type") is not None:
         rec = record("cp_anode_types", request["anode_type"], "anode_type")
         d.cite(rec["source"])
         d.step("Anode type", "utilisation factor u and resistance formula", rec["name"],
-               f"u = {fmt(rec['utilisation'])} ({rec['confidence']}), formula: {rec['shape']}")
+               f"u = {fmt(rec['utilisation'])} ({rec['confidence']}), formula: {SHAPE_NAMES[rec['shape']]}")
         return float(rec["utilisation"]), rec["shape"], rec
     if request.get("utilisation") is None:
-        raise InputError("anode_type", None, "an anode type (e.g. long-slender-standoff) or utilisation directly")
+        raise InputError("anode_type", None, "an anode type (e.g. a long slender stand-off anode) or its utilisation factor "
+                                              "directly")
     return check("fraction", request["utilisation"], "utilisation"), None, None
 
 
 def _protection(request, e_a, d):
     """(protection potential [V vs Ag/AgCl seawater], structure id)."""
     structure = request.get("structure", "carbon-steel")
-    sid = record("cp_structures", structure, "structure")["id"]
+    rec = record("cp_structures", structure, "structure")
+    sid = rec["id"]
     if request.get("protection_V") is not None:
         e_c = check("potential_V", request["protection_V"], "protection_V")
     else:
@@ -112,9 +121,8 @@ def _protection(request, e_a, d):
     limits = [r for r in criteria_for(sid, LIMIT_SETTING) if r.get("kind") == "limit"]
     if e_a is not None and limits and e_a < limits[0]["potential_V"]:
         d.warn("alloy", f"the anode's closed-circuit potential {fmt(e_a)} V is more negative than the limit "
-                        f"{fmt(limits[0]['potential_V'])} V for {sid} ({limits[0]['name']}): risk of hydrogen "
-                        "embrittlement; limit the potential (a less negative alloy, or diodes where the standard "
-                        "allows them)")
+                        f"{fmt(limits[0]['potential_V'])} V for {short_name(rec).lower()}: risk of hydrogen embrittlement; "
+                        "limit the potential (a less negative alloy, or diodes where the standard allows them)")
         d.cite(limits[0]["source"])
     return e_c, sid
 
@@ -139,11 +147,12 @@ def _final_dims(anode, shape, u, d):
         lf, rf = consumed_standoff(check("length_m", anode["length_m"], "anode.length_m"),
                                    check("radius_m", anode["radius_m"], "anode.radius_m"), u, core)
         d.step("Final (consumed) anode dimensions", "L_f = 0.9·L; r_f² = r_c² + (1 − u)·(r² − r_c²)·L/L_f "
-               "(rule from memory; give anode.final to use your own)", f"u = {fmt(u)}, r_c = {fmt(core)} m",
+               "(rule from memory; give the consumed dimensions to use your own)", f"u = {fmt(u)}, r_c = {fmt(core)} m",
                f"L_f = {fmt(lf, 4)} m, r_f = {fmt(rf, 4)} m")
         return {"length_m": lf, "radius_m": rf, "standoff_m": anode.get("standoff_m")}
     d.warn("anode.final", "no consumed dimensions given: the final resistance uses the initial ones, so the final "
-                          "output and the count from it are optimistic; give anode.final")
+                          "output and the count from it are optimistic; give the consumed (final) anode "
+                          "dimensions")
     return anode
 
 
@@ -184,7 +193,7 @@ def _counts(demand, mass, each_kg, out, d):
         if out is not None and demand.get(stage) is not None:
             by[f"{stage} current output"] = count_for(demand[stage], out[stage])
     if not by:
-        d.warn("anode", "give anode.net_mass_kg and the anode's dimensions for the number of anodes")
+        d.warn("anode", "give the net mass and the dimensions of one anode for the number of anodes")
         return None, by, None, []
     n = max(by.values())
     governed = next(k for k in by if by[k] == n)

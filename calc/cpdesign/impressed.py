@@ -64,14 +64,14 @@ def _group(request, rho, single, orientation, length, diameter, d):
     n = check_count(request.get("count", 1), "count")
     method = request.get("paralleling", "table")
     if method not in PARALLELING:
-        raise InputError("paralleling", method, "table (the handbooks' paralleling factors) or sunde (Sunde's formula)")
+        raise InputError("paralleling", method, "the handbooks' paralleling table (table) or Sunde's formula (sunde)")
     if n == 1:
         return single, n, None, None, None
     if request.get("spacing_m") is None:
         raise InputError("spacing_m", None, "the centre-to-centre spacing of the anodes in m")
     spacing = check("spacing_m", request["spacing_m"])
     if method == "sunde" and orientation == "horizontal":
-        raise InputError("paralleling", method, "table for horizontal anodes (Sunde's formula is for vertical ones)")
+        raise InputError("paralleling", method, "the handbooks' paralleling table for horizontal anodes (Sunde's formula is for vertical ones)")
     value, p, row = group_resistance(method, single, rho, length, diameter, n, spacing)
     if method == "table":
         src, conf = row_source(table("paralleling-factor"), row)
@@ -157,7 +157,7 @@ def _life(request, amps, n, d):
         if not imp.get("includes_efficiency"):
             d.warn("anode_material", "the consumption rate is the theoretical one: the life is an upper bound")
     else:
-        raise InputError("anode_material", None, "an impressed-current anode material or consumption_kg_per_A_yr")
+        raise InputError("anode_material", None, "an impressed-current anode material, or its consumption rate in kg/(A·yr)")
     years = handbook_life(n * each, rate, amps)
     d.step("Life of the anodes", "Y = W/(S·I) (S including the efficiency)",
            f"Y = {n} × {fmt(each)} kg / ({fmt(rate, 4)} kg/(A·yr) × {fmt(amps, 5)} A)", f"Y = {fmt(years, 4)} years")
@@ -193,9 +193,10 @@ def read_rectifier(request, total, d):
     amps = check("current_A", request["current_A"])
     margin = check("margin", request.get("margin", MARGIN_DEFAULT))
     back = check("back_emf_V", request.get("back_emf_V", BACK_EMF_DEFAULT_V))
-    for key, value in (("margin", MARGIN_DEFAULT), ("back_emf_V", BACK_EMF_DEFAULT_V)):
+    for key, words, value in (("margin", "no rectifier margin given", MARGIN_DEFAULT),
+                              ("back_emf_V", "no back voltage given", BACK_EMF_DEFAULT_V)):
         if request.get(key) is None:
-            d.warn(key, f"{key} not given: {fmt(value)} assumed (common practice)")
+            d.warn(key, f"{words}: {fmt(value)}{' V' if key == 'back_emf_V' else ''} assumed (common practice)")
     volts, rated_a, rated_v = rectifier(amps, total, back, margin)
     d.step("Rectifier", "V = I·R_T + back voltage; rating: I(1 + margin) and the voltage it needs",
            f"V = {fmt(amps, 5)} A × {fmt(total, 5)} Ω + {fmt(back)} V; margin {fmt(margin)}",

@@ -6,6 +6,8 @@ millimetres); they are not design limits. Each has the words its error shows. Th
 command line and the page.
 """
 
+from dataclasses import asdict
+
 from ..bounds import Bound
 from ..derivation import check_number
 from ..errors import InputError
@@ -103,3 +105,18 @@ def check_count(value, field, allowed="a whole number of anodes from 1 to 10000"
     if number != int(number):
         raise InputError(field, value, allowed)
     return int(number)
+
+
+def as_data():
+    """The table as plain data for the page (``cp_bounds`` of spec.json): name -> {low, high, low_open, unit, text}.
+
+    Returns:
+        a dict of dicts, the shape of :func:`calc.bounds.as_data` [the bounds' units]
+
+    References:
+        Project convention (one generated file carries the bounds to the page).
+
+    >>> as_data()["life_years"]["text"]
+    '0.01 to 100 years'
+    """
+    return {name: {k: v for k, v in asdict(b).items() if k != "allowed"} for name, b in BOUNDS.items()}

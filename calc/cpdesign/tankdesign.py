@@ -35,6 +35,11 @@ from .tank import (FRINGE_BELOW_L_OVER_D, circle_radius, circle_spacing, cylinde
 
 ARRANGEMENTS = ("centre", "rod-circle", "hoop")
 BOTTOMS = ("flat", "ellipsoidal", "none")
+#: arrangement -> its words; request key -> its words, for the messages
+ARRANGEMENT_WORDS = {"centre": "anodes in the middle of the tank", "rod-circle": "circle of rods",
+                     "hoop": "hoop of wire"}
+KEY_WORDS = {"area_m2": "the wetted area", "current_A": "the current"}
+_ARRANGED = ", ".join(f"{k} ({v})" for k, v in ARRANGEMENT_WORDS.items())
 #: the share of the tank diameter a hoop usually has (ETL 1110-9-10 p. 13, read: "typically between 40
 #: and 70 percent of the tank diameter") [unitless]
 HOOP_SHARE = (0.40, 0.70)
@@ -56,11 +61,11 @@ def _area(request, diameter, d):
     if request.get("wall_height_m") is None:
         for key in ("bottom", "bottom_depth_m"):
             if request.get(key) is not None:
-                raise InputError(key, request[key], "with wall_height_m (the wetted height of the shell)")
+                raise InputError(key, request[key], "with the wetted height of the shell")
         return None
     if request.get("area_m2") is not None or request.get("current_A") is not None:
         key = "area_m2" if request.get("area_m2") is not None else "current_A"
-        raise InputError("wall_height_m", request["wall_height_m"], f"the tank's geometry or {key}, not both")
+        raise InputError("wall_height_m", request["wall_height_m"], f"the tank's geometry or {KEY_WORDS[key]}, not both")
     r, h = diameter / 2.0, check("length_m", request["wall_height_m"], "wall_height_m")
     bottom = request.get("bottom", "flat")
     if bottom not in BOTTOMS:
@@ -150,7 +155,7 @@ def _rod_circle(request, rho, diameter, d):
         d.step("Radius of the anode circle", "r = D·N/(2(π + N)) (UFC 3-570-02A eq D-8)",
                f"r = {fmt(diameter)} m × {n} / (2(π + {n}))", f"r = {fmt(ar, 4)} m")
     else:
-        raise InputError("circle_radius_m", None, "the radius of the anode circle in m, or count to compute it")
+        raise InputError("circle_radius_m", None, "the radius of the anode circle in m, or the number of rods to compute it")
     if ar >= diameter / 2.0:
         raise InputError("circle_radius_m", ar, f"a circle inside the tank (radius below {fmt(diameter / 2.0)} m)")
     if diameter / (2.0 * ar * de) <= 1.0:
@@ -301,23 +306,23 @@ def tank_entry(request):
     """
     read(request, "tank", {"resistivity_ohm_m": "the water resistivity in Ω·m",
                            "tank_diameter_m": "the tank's inside diameter in m",
-                           "arrangement": "how the anodes are placed: " + ", ".join(ARRANGEMENTS)}, FIELDS)
+                           "arrangement": "how the anodes are placed: " + _ARRANGED}, FIELDS)
     d = Derivation()
     rho = check("resistivity_ohm_m", request["resistivity_ohm_m"])
     diameter = check("tank_diameter_m", request["tank_diameter_m"])
     arrangement = request["arrangement"]
     if not isinstance(arrangement, str) or arrangement not in ARRANGEMENTS:
-        raise InputError("arrangement", arrangement, "one of " + ", ".join(ARRANGEMENTS))
+        raise InputError("arrangement", arrangement, "one of " + _ARRANGED)
     for other, keys in ONLY.items():
         for key in keys:
             if other != arrangement and request.get(key) is not None:
-                raise InputError(key, request[key], "no such field", f"it belongs to the {other} arrangement, "
-                                                                   f"not to {arrangement}")
+                raise InputError(key, request[key], "no such field", f"it belongs to the {ARRANGEMENT_WORDS[other]}, "
+                                                                   f"not to the {ARRANGEMENT_WORDS[arrangement]}")
     if arrangement == "hoop":
         for key in ("anode_length_m", "anode_diameter_m", "fringe_factor", "count"):
             if request.get(key) is not None:
-                raise InputError(key, request[key], "no such field", "a hoop is given by hoop_diameter_m, "
-                                                                   "wire_diameter_m and depth_m")
+                raise InputError(key, request[key], "no such field", "a hoop is given by its diameter, its wire's "
+                                                                   "diameter and its depth")
     if request.get("life_years") is not None:  # a bad life is refused even where it is not needed
         check("life_years", request["life_years"])
     d.cite("mil-hdbk-1004-10")
@@ -335,7 +340,7 @@ def tank_entry(request):
     rating = _rating(request, amps, layout, checks, d) if amps is not None else {
         "count_for_rating": None, "wire_length_needed_m": None}
     if amps is None and any(request.get(k) is not None for k in ("life_years", "anode_rating_A", "wire_rating_A_per_m")):
-        d.warn("current_A", "no current given (current_A, or the area and its current density): the anode "
+        d.warn("current_A", "no current given (the current, or the area and its current density): the anode "
                             "material and the number for the rating are not computed")
     circuit = read_circuit(request, group, d)
     if request.get("max_resistance_ohm") is not None:

@@ -9,7 +9,7 @@ current density (by climatic region and depth) times its area times its coating 
 from ..derivation import fmt
 from ..errors import InputError
 from ..requests import label, read
-from .catalogue import record, region_for
+from .catalogue import names_of, record, region_for
 from .demand import STAGES, breakdown_factors, current_demand, demand_text, densities
 from .limits import check
 
@@ -56,8 +56,14 @@ def read_zones(zones):
     """
     if not isinstance(zones, list) or not zones or len(zones) > ZONES_MAX:
         raise InputError("zones", zones if not isinstance(zones, list) else f"a list of {len(zones)}",
-                         f"a list of 1 to {ZONES_MAX} zones, each {{area_m2, zone, depth_m, coating, name}}")
+                         f"a list of 1 to {ZONES_MAX} zones, each with its surface area (and where it is, its depth, "
+                         "its coating and a name)")
     return [_zone(item, i) for i, item in enumerate(zones)]
+
+
+def _regions():
+    """The climatic regions of the dataset, by name."""
+    return names_of("cp_current_densities", lambda rec: rec.get("zone") == "seawater")
 
 
 def region_of(request, need):
@@ -77,18 +83,17 @@ def region_of(request, need):
     'tropical'
     """
     if request.get("region") is not None and request.get("water_temp_C") is not None:
-        raise InputError("water_temp_C", request["water_temp_C"], "region or water_temp_C, not both")
+        raise InputError("water_temp_C", request["water_temp_C"], "a climatic region or the surface-water temperature, not both")
     if request.get("region") is not None:
         rec = record("cp_current_densities", request["region"], "region")
         if rec.get("zone") != "seawater":
-            raise InputError("region", request["region"],
-                             "a climatic region: tropical, sub-tropical, temperate or arctic")
+            raise InputError("region", request["region"], "a climatic region: " + _regions())
         return rec
     if request.get("water_temp_C") is not None:
         return region_for(check("water_temp_C", request["water_temp_C"]))
     if need:
-        raise InputError("region", None, "a climatic region (tropical, sub-tropical, temperate, arctic) or "
-                                         "water_temp_C, the surface-water temperature in °C")
+        raise InputError("region", None, f"a climatic region ({_regions()}) or the surface-water temperature "
+                                         "in °C")
     return None
 
 

@@ -6,7 +6,7 @@
 import { frame } from "./ui.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import {
-  cautions, checksList, choice, derivation, field, figures, fill, governedBy, governsText, group, h, headline, maybe, nameOf, need, numField,
+  cautions, checksList, choice, cpHint, derivation, field, figures, fill, governedBy, governsText, group, h, headline, maybe, nameOf, need, numField,
   ownParams, recalc, record, row, sig, text, warningsList,
 } from "./cpdesign-kit.mjs";
 import { wennerHelper } from "./cpdesign-wenner.mjs";
@@ -32,12 +32,12 @@ export async function buried(root, { ds, sp, prefill }) {
   const url = ownParams("b.");
   const get = (k, fallback) => url.get(k) ?? fallback;
   const mode = field("cw-b-mode", "Current required", choice(MODES, get("mode", start.current_A !== undefined ? "given" : "area"), "area"));
-  const area = numField("cw-b-area", "Surface area of the structure (m²)", get("area", start.area_m2), "the steel surface in contact with the soil");
-  const dens = numField("cw-b-dens", "Current density for bare steel (mA/m²)", get("dens", start.current_density_mA_per_m2), "for the soil, from the governing standard or a survey");
-  const ce = numField("cw-b-ce", "Coating efficiency (0 to below 1)", get("ce", start.coating_efficiency), "the share of the surface the coating insulates, e.g. 0.95; empty: 0 (bare)");
-  const amps = numField("cw-b-i", "Current required (A)", get("i", start.current_A ?? ""), "from a current-requirement test, for example");
-  const rho = numField("cw-b-rho", "Soil resistivity (Ω·m)", get("rho", start.resistivity_ohm_m), "measured near the anodes; 1 Ω·m = 100 Ω·cm");
-  const wenner = wennerHelper("bw", (sp.openings || {}).wenner || {}, rho, () => recalc(ui));
+  const area = numField("cw-b-area", "Surface area of the structure (m²)", get("area", start.area_m2), cpHint(sp, "area_m2", "the steel surface in contact with the soil"));
+  const dens = numField("cw-b-dens", "Current density for bare steel (mA/m²)", get("dens", start.current_density_mA_per_m2), cpHint(sp, "current_density_mA_per_m2", "for the soil, from the governing standard or a survey"));
+  const ce = numField("cw-b-ce", "Coating efficiency (0 to below 1)", get("ce", start.coating_efficiency), cpHint(sp, "coating_efficiency", "the share of the surface the coating insulates, e.g. 0.95; empty: 0 (bare)"));
+  const amps = numField("cw-b-i", "Current required (A)", get("i", start.current_A ?? ""), cpHint(sp, "current_A", "from a current-requirement test, for example"));
+  const rho = numField("cw-b-rho", "Soil resistivity (Ω·m)", get("rho", start.resistivity_ohm_m), cpHint(sp, "resistivity_ohm_m", "measured near the anodes; 1 Ω·m = 100 Ω·cm"));
+  const wenner = wennerHelper("bw", (sp.openings || {}).wenner || {}, rho, () => recalc(ui), sp);
   const alloys = (ds.cp_anode_alloys || []).filter((a) => a.buried);
   const alloy = field("cw-b-alloy", "Anode alloy", choice(alloys.map((a) => ({ value: a.id, label: a.name })), get("alloy", start.alloy), "magnesium"));
   const anodes = sizeTable(ds).map((r) => ({ value: r.id, label: r.mass_lb + " lb, " + r.group + ", f = " + r.f }));
@@ -45,7 +45,7 @@ export async function buried(root, { ds, sp, prefill }) {
     "its size factor f enters the output; its mass the life");
   const coating = field("cw-b-coat", "Structure coating (magnesium output constant)", choice(COATINGS, get("coat", start.coating), "well-coated"));
   const pot = numField("cw-b-pot", "Structure potential (V vs CSE)", get("pot", start.structure_potential_V_CSE), "the potential to hold, as the criterion of the standard in use gives it");
-  const life = numField("cw-b-life", "Design life (years)", get("life", start.life_years));
+  const life = numField("cw-b-life", "Design life (years)", get("life", start.life_years), cpHint(sp, "life_years"));
   const given = row(amps);
   const fromArea = row(area, dens, ce);
   ui.formBox.append(

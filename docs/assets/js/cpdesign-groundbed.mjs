@@ -6,7 +6,7 @@
 import { frame } from "./ui.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import {
-  cautions, checksList, choice, derivation, field, figures, fill, group, h, headline, maybe, nameOf, need, numField, ownParams,
+  cautions, checksList, choice, cpHint, derivation, field, figures, fill, group, h, headline, maybe, nameOf, need, numField, ownParams,
   recalc, record, row, sig, source, text, warningsList,
 } from "./cpdesign-kit.mjs";
 import { wennerHelper } from "./cpdesign-wenner.mjs";
@@ -20,15 +20,23 @@ const PARALLELING = [
   { value: "sunde", label: "Sunde's formula (vertical anodes)" },
 ];
 
+const BOUNDS = {
+  resistivity_ohm_m: "resistivity_ohm_m", depth_m: "depth_m", length_m: "length_m", diameter_m: "diameter_m", spacing_m: "spacing_m",
+  current_A: "current_A", cable_length_m: "length_m", cable_ohm_per_km: "cable_ohm_per_km", structure_resistance_ohm: "circuit_ohm",
+  margin: "margin", back_emf_V: "back_emf_V", max_resistance_ohm: "resistance_ohm", anode_mass_kg: "anode_mass_kg",
+  life_years: "life_years", anode_rating_A: "current_A",
+};
+
 export async function groundbed(root, { ds, sp }) {
   const ui = frame(root, "Cathodic-protection design: impressed-current groundbed");
   const bar = headline(ui);
   const start = (sp.openings || {}).groundbed || {};
   const url = ownParams("g.");
   const get = (k, fallback) => url.get(k) ?? fallback;
-  const f = (key, id, label, help) => numField("cw-g-" + id, label, get(id, start[key] ?? ""), help);
+  // calc's bound of a field (calc/cpdesign/limits.py, as the engine checks it), shown in its hint
+  const f = (key, id, label, help) => numField("cw-g-" + id, label, get(id, start[key] ?? ""), cpHint(sp, BOUNDS[key], help));
   const rho = f("resistivity_ohm_m", "rho", "Soil resistivity (Ω·m)", "measured at the groundbed's depth; 1 Ω·m = 100 Ω·cm");
-  const wenner = wennerHelper("gw", (sp.openings || {}).wenner || {}, rho, () => recalc(ui));
+  const wenner = wennerHelper("gw", (sp.openings || {}).wenner || {}, rho, () => recalc(ui), sp);
   const orient = field("cw-g-or", "Orientation", choice(ORIENTATIONS, get("or", start.orientation), "vertical"));
   const depth = f("depth_m", "dep", "Depth of the anode's axis (m)", "horizontal anodes only");
   const length = f("length_m", "L", "Length of one anode or backfill column (m)", "with backfill: the column's length");

@@ -6,7 +6,7 @@
 import { frame } from "./ui.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import {
-  catalogueOptions, cautions, checksList, choice, derivation, figures, fill, governedBy, governsText, group, h, maybe, nameOf, need, numField,
+  catalogueOptions, cautions, checksList, choice, cpHint, derivation, figures, fill, governedBy, governsText, group, h, maybe, nameOf, need, numField,
   field, headline, ownParams, recalc, record, row, sig, stages, text, warningsList,
 } from "./cpdesign-kit.mjs";
 import { zoneFromUrl, zonesEditor } from "./cpdesign-zones.mjs";
@@ -33,6 +33,8 @@ const WORDS = {
   width_m: ["Width W (m)", "of the anode"],
   area_m2: ["Exposed area A (m²)", "the anode surface facing the water"],
 };
+// calc's bound of each dimension (calc/cpdesign/limits.py, as the engine checks it)
+const BOUNDS = { net_mass_kg: "anode_mass_kg", length_m: "length_m", radius_m: "radius_m", standoff_m: "standoff_m", core_radius_m: "radius_m", width_m: "width_m", area_m2: "anode_area_m2" };
 const URL_KEYS = { net_mass_kg: "m", length_m: "L", radius_m: "r", standoff_m: "so", core_radius_m: "rc", width_m: "w", area_m2: "A" };
 
 export async function immersed(root, { ds, sp, prefill }) {
@@ -49,16 +51,16 @@ export async function immersed(root, { ds, sp, prefill }) {
   const zoneStart = url.has("z") ? url.getAll("z").map(zoneFromUrl) : (start.zones || []);
   const zones = zonesEditor(ds, zoneStart, () => recalc(ui));
   const cur = {
-    initial: numField("cw-i-ci", "Initial current demand (A)", get("ci", ""), "to polarise the structure at the start"),
-    mean: numField("cw-i-cm", "Mean current demand (A)", get("cm", ""), "over the design life: sets the net mass"),
-    final: numField("cw-i-cf", "Final current demand (A, optional)", get("cf", ""), "at the end of the life; empty: the final check is skipped"),
+    initial: numField("cw-i-ci", "Initial current demand (A)", get("ci", ""), cpHint(sp, "current_A", "to polarise the structure at the start")),
+    mean: numField("cw-i-cm", "Mean current demand (A)", get("cm", ""), cpHint(sp, "current_A", "over the design life: sets the net mass")),
+    final: numField("cw-i-cf", "Final current demand (A, optional)", get("cf", ""), cpHint(sp, "current_A", "at the end of the life; empty: the final check is skipped")),
   };
   const direct = row(cur.initial, cur.mean, cur.final);
-  const life = numField("cw-i-life", "Design life (years)", get("life", start.life_years), "of the cathodic protection");
+  const life = numField("cw-i-life", "Design life (years)", get("life", start.life_years), cpHint(sp, "life_years", "of the cathodic protection"));
   const regions = catalogueOptions(ds.cp_current_densities, (r) => r.zone === "seawater");
   const region = field("cw-i-reg", "Climatic region", choice([...regions, { value: BY_TEMP, label: "From the surface-water temperature…" }], get("reg", start.region), regions[0] && regions[0].value),
     "by the surface-water temperature of the site");
-  const temp = numField("cw-i-t", "Surface-water temperature (°C)", get("t", ""), "the region follows from it");
+  const temp = numField("cw-i-t", "Surface-water temperature (°C)", get("t", ""), cpHint(sp, "water_temp_C", "the region follows from it"));
   const regionRow = row(life, region, temp);
 
   // --- the anodes
@@ -68,11 +70,11 @@ export async function immersed(root, { ds, sp, prefill }) {
     "sets the resistance formula and the utilisation factor");
   // where the stand-off formula holds, as the anode type's record says (data/cp_anode_types.yaml)
   const rule = (types.find((t) => t.standoff) || {}).standoff;
-  const help = (k) => WORDS[k][1] + (k === "standoff_m" && rule ? "; the formula holds from " + rule.min_m + " m, ×" + rule.near_factor + " from " + rule.near_min_m + " m" : "");
+  const help = (k) => cpHint(sp, BOUNDS[k], WORDS[k][1] + (k === "standoff_m" && rule ? "; the formula holds from " + rule.min_m + " m, ×" + rule.near_factor + " from " + rule.near_min_m + " m" : ""));
   const dims = {};
   for (const k of Object.keys(WORDS)) dims[k] = numField("cw-i-" + URL_KEYS[k], WORDS[k][0], get(URL_KEYS[k], anodeStart[k]), help(k));
   const fin = {};
-  for (const k of FINAL) fin[k] = numField("cw-i-f" + URL_KEYS[k], "Final " + WORDS[k][0].replace(/^\w/, (c) => c.toLowerCase()), get("f" + URL_KEYS[k], ""), "consumed; empty: calc's rule");
+  for (const k of FINAL) fin[k] = numField("cw-i-f" + URL_KEYS[k], "Final " + WORDS[k][0].replace(/^\w/, (c) => c.toLowerCase()), get("f" + URL_KEYS[k], ""), cpHint(sp, BOUNDS[k], "consumed; empty: calc's rule"));
   const finBox = h("details", { class: "cw-cpd-final" }, h("summary", { text: "Consumed (final) dimensions, optional" }),
     h("p", { class: "cw-field-help", text: "Empty: for a stand-off anode calc applies its rule for the consumed length and radius (recalled, shown in the derivation); for other types it uses the initial dimensions and says so." }),
     row(...FINAL.map((k) => fin[k])));
@@ -80,7 +82,7 @@ export async function immersed(root, { ds, sp, prefill }) {
 
   // --- water and structure
   const rho = numField("cw-i-rho", "Seawater resistivity (Ω·m)", get("rho", pre && pre.resistivity ? pre.resistivity : start.resistivity_ohm_m),
-    "at the anodes; seawater about 0.2 to 0.3 Ω·m, higher in brackish and cold water");
+    cpHint(sp, "resistivity_ohm_m", "at the anodes; seawater about 0.2 to 0.3 Ω·m, higher in brackish and cold water"));
   const structure = field("cw-i-st", "Structure (for its potential limit)", choice(catalogueOptions(ds.cp_structures), get("st", start.structure), "carbon-steel"),
     "high-strength steels have a limit more negative potentials must not pass");
 

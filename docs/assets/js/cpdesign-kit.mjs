@@ -3,7 +3,7 @@
 // one rule (ui.mjs readInto), and the parts of a result (the figures, the checks, the governing
 // criterion in words, the cautions the result carries, its sources and data version).
 import {
-  cautionsBox, derivation, field, fieldText, fill, fmt, h, numberInput, readInto, sourceLink, sourcesLine, warningsList,
+  cautionsBox, derivation, field, fieldText, fill, fmt, h, hint, numberInput, readInto, sourceLink, sourcesLine, warningsList,
 } from "./ui.mjs";
 
 export { derivation, field, fill, h, warningsList };
@@ -30,6 +30,12 @@ export function ownParams(prefix) {
 // A field for a number, its unit in its label; the value is text (as typed or as a link holds it).
 export function numField(id, label, value, help) {
   return field(id, label, numberInput(typeof value === "number" ? fieldText(value) : value ?? ""), help);
+}
+
+// The hint under a design field: calc's range for it (spec.json cp_bounds, written from
+// calc/cpdesign/limits.py), then the page's own words, as ui.mjs hint() does for the other pages.
+export function cpHint(sp, bound, extra) {
+  return hint({ bounds: (sp && sp.cp_bounds) || {} }, bound, extra);
 }
 
 // Read a number field into req[key] (required): false when it holds a number, true (and a

@@ -3,14 +3,14 @@
 // the design's resistivity field. It calculates on its own (its inputs do not recalculate the
 // design until its value is used) and keeps its own URL parameters.
 import { calculate } from "./site.mjs";
-import { cautions, derivation, fill, h, need, numField, ownParams, sig, text, warningsList } from "./cpdesign-kit.mjs";
+import { cautions, cpHint, derivation, fill, h, need, numField, ownParams, sig, text, warningsList } from "./cpdesign-kit.mjs";
 
 // prefix: the helper's URL prefix and id stem (e.g. "bw"); start: the opening request of "wenner";
-// target: the design's resistivity field; use(): after the value is put there.
-export function wennerHelper(prefix, start, target, use) {
+// target: the design's resistivity field; use(): after the value is put there; sp: calc's spec (the bounds).
+export function wennerHelper(prefix, start, target, use, sp) {
   const url = ownParams(prefix + ".");
-  const a = numField("cw-" + prefix + "-a", "Pin spacing a (m)", url.get("a") ?? start.spacing_m, "equal spacing of the four pins in a line; the reading averages the soil to about this depth");
-  const r = numField("cw-" + prefix + "-r", "Meter reading R (Ω)", url.get("r") ?? start.resistance_ohm, "voltage between the inner pins over the current between the outer ones");
+  const a = numField("cw-" + prefix + "-a", "Pin spacing a (m)", url.get("a") ?? start.spacing_m, cpHint(sp, "spacing_m", "equal spacing of the four pins in a line; the reading averages the soil to about this depth"));
+  const r = numField("cw-" + prefix + "-r", "Meter reading R (Ω)", url.get("r") ?? start.resistance_ohm, cpHint(sp, "resistance_ohm", "voltage between the inner pins over the current between the outer ones"));
   const out = h("div", { class: "cw-cpd-wenner-result", "aria-live": "polite" });
   const box = h("details", { class: "cw-cpd-wenner" },
     h("summary", { text: "Soil resistivity from a Wenner four-pin reading (ASTM G57)" }),
