@@ -17,7 +17,8 @@
 //     free_corrosion_points: [{electrode, E_V,       each electrode on its own (missing when it has
 //                              log10_I_A}],          no free-corrosion point)
 //   }
-// `totals` and `exchange_points` are optional here (drawn when present). Potentials are on the
+// `totals`, `exchange_points` and `log10_I_window` ([lo, hi], the decades worth drawing) are
+// optional here (used when present). Potentials are on the
 // scale the reactions were given on; say which with opts.potentialLabel.
 //
 // evansChart(evans, {title, potentialLabel, caption}) returns a <figure> holding the SVG and a key.
@@ -67,6 +68,8 @@ export function decadeRange(ev) {
   const starts = (ev.exchange_points || []).map((p) => p.log10_I_A);
   let hi = Math.ceil(Math.max(...keys) + 1.5);
   let lo = Math.floor(Math.min(...keys, ...starts) - 0.5);
+  const win = ev.log10_I_window; // the decades worth drawing, where a result gives them (the joint's)
+  if (win) { lo = Math.max(lo, win[0]); hi = Math.min(hi, win[1]); }
   if (hi - lo > SPAN_MAX) lo = hi - SPAN_MAX;
   if (hi - lo < SPAN_MIN) lo = hi - SPAN_MIN;
   return [lo, hi];

@@ -9,6 +9,8 @@ import {
   onCriterion, settingOptions, structureOptions,
 } from "./cpview.mjs";
 import { bindForm, runner } from "./runner.mjs";
+import { serviceForm } from "./serviceform.mjs";
+import { atService } from "./jointmix.mjs";
 import {
   allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
   known, materialOptions, numberInput, readInto, select, signed, sourceLink, sourcesLine, verdictBadge, warningsList,
@@ -66,6 +68,8 @@ export async function measured(root) {
     h("div", { class: "cw-row" }, bName.el, bRead.el, bmField.el),
     h("div", { class: "cw-row" }, elField.el, tField.el, sField.el),
     h("div", { class: "cw-row" }, envField.el));
+  const svc = serviceForm(ds, sp, { id: "cw-m-sc", get: (k) => url.get(k), envId: () => envField.control.value, omit: ["temp_C", "water"] });
+  ui.formBox.append(svc.el);
 
   function collect() {
     let bad = false;
@@ -84,13 +88,14 @@ export async function measured(root) {
     } else sField.setError("");
     if (amField.control.value) req.a_material = amField.control.value;
     if (bmField.control.value) req.b_material = bmField.control.value;
-    url.write([["a", aName.control.value.trim()], ["av", aRead.control.value.trim()], ["b", bName.control.value.trim()],
+    bad = svc.collect(req) || bad;
+    url.write([...svc.entries(), ["a", aName.control.value.trim()], ["av", aRead.control.value.trim()], ["b", bName.control.value.trim()],
       ["bv", bRead.control.value.trim()], ["el", req.electrode], ["t", tField.control.value.trim()], ["env", req.env],
       ["s", sField.el.hidden ? "" : sField.control.value.trim()], ["am", amField.control.value || "-"], ["bm", bmField.control.value || "-"]]);
     return { req, bad };
   }
   const fieldFor = fieldMap({ a_name: aName, a_reading_V: aRead, b_name: bName, b_reading_V: bRead, electrode: elField,
-    temp_C: tField, env: envField, salinity: sField, a_material: amField, b_material: bmField });
+    temp_C: tField, env: envField, salinity: sField, a_material: amField, b_material: bmField }, svc.fieldFor);
   function render(r) {
     const pub = r.published;
     const rows = [
@@ -109,7 +114,7 @@ export async function measured(root) {
     const pubBox = pub ? h("section", { class: "cw-published", "aria-label": "Published-series judgement" },
       h("h3", { text: "Beside it: the published galvanic series" }),
       h("p", {}, verdictBadge(pub.verdict), " ", pub.verdict_text),
-      h("p", { class: r.agreement ? "cw-agree" : "cw-disagree", role: r.agreement ? null : "note", text: r.agreement_text })) : null;
+      h("p", { class: r.agreement ? "cw-agree" : "cw-disagree", role: r.agreement ? null : "note", text: r.agreement_text }), atService(pub, ds)) : null;
     const states = (r.state_check || []).map((s) => h("li", { text: s.material + ": if it turns active (published drop " + fmt(s.drop_V, 3) + " V), ΔE would be " + fmt(s.delta_E_if_active_V, 3) + " V" + (s.fails ? ", beyond the allowable" : ", still within the allowable") }));
     fill(ui.result,
       h("p", { class: "cw-big" }, verdictBadge(r.verdict)),

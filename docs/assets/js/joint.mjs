@@ -6,9 +6,11 @@ import { seriesCaveat } from "./caveat.mjs";
 import { bindForm, runner } from "./runner.mjs";
 import { materialName } from "./names.mjs";
 import { cpDesignLink } from "./cpdesignlink.mjs";
+import { serviceForm } from "./serviceform.mjs";
+import { codedWarnings, jointMix } from "./jointmix.mjs";
 import {
   allowed, assumptionsBox, begin, cautionsBox, derivation, environmentOptions, field, fieldMap, fill, fmt, h, hint,
-  known, materialOptions, numberInput, readInto, select, sourceLink, sourcesLine, verdictBadge, warningsList, writeUrl,
+  known, materialOptions, numberInput, readInto, select, sourceLink, sourcesLine, verdictBadge, writeUrl,
 } from "./ui.mjs";
 
 // The galvanic series chart (made at build time) as a page node: fetched and parsed once per
@@ -122,6 +124,8 @@ export async function joint(root) {
   const arField = field("cw-ar", "Wetted area ratio, cathode : anode", numberInput(params.get("ar") ?? start.area_ratio),
     hint(sp, "area_ratio", "e.g. 0.1 for a small noble fastener in a large plate, 10 for the reverse"));
   ui.formBox.append(h("div", { class: "cw-row" }, aField.el, bField.el), h("div", { class: "cw-row" }, envField.el, arField.el));
+  const svc = serviceForm(ds, sp, { id: "cw-sc", get: (k) => params.get(k), envId: () => envField.control.value, anodeArea: true });
+  ui.formBox.append(svc.el);
   function collect() {
     let bad = false;
     const p = new URLSearchParams();
@@ -130,10 +134,12 @@ export async function joint(root) {
       bad = readInto(arField, req, "area_ratio", allowed(sp, "area_ratio", "a ratio of cathode area over anode area")) || bad;
     } else arField.setError("");
     p.set("a", req.a); p.set("b", req.b); p.set("env", req.env); p.set("ar", arField.control.value.trim());
+    bad = svc.collect(req) || bad;
+    for (const [k, v] of svc.entries()) if (v) p.set(k, v);
     writeUrl(p);
     return { req, bad };
   }
-  const fieldFor = fieldMap({ a: aField, b: bField, env: envField, "area*": arField });
+  const fieldFor = fieldMap({ a: aField, b: bField, env: envField, "area*": arField }, svc.fieldFor);
   const seriesChart = seriesChartView();
   const name = (id) => materialName(ds, id);
   async function render(r) {
@@ -148,6 +154,7 @@ export async function joint(root) {
       h("p", { class: "cw-big" }, verdictBadge(r.verdict)),
       h("p", { class: "cw-direction", text: r.verdict_text }),
       h("p", { class: "cw-meaning", text: "“" + r.verdict + "”: " + r.verdict_meaning }),
+      jointMix(r, ds),
       h("table", { class: "cw-compare" }, h("tbody", {},
         h("tr", {}, h("th", { text: "Anode (attacked)" }), h("td", { text: r.anode_name || (r.anode ? name(r.anode) : "—") })),
         h("tr", {}, h("th", { text: "Cathode" }), h("td", { text: r.cathode_name || (r.cathode ? name(r.cathode) : "—") })),
@@ -160,7 +167,7 @@ export async function joint(root) {
         h("tr", {}, h("th", { text: "Galvanic attack on the anode, upper-bound screen" }), h("td", {},
           h("span", { "data-cw-value": "rate_mm_per_year", text: rateText(r) }),
           r.rate_mm_per_year ? h("div", { class: "cw-reason", text: "An upper bound, not a prediction: the cathode is taken to draw its full oxygen-limited current and all of it to leave through the anode. Real attack is usually less, and concentrated next to the joint." }) : null)))),
-      warningsList(caveat.rest),
+      codedWarnings(caveat.rest),
       statesTable(r.states || [], name),
       adviceNodes(r),
       h("h3", { text: index ? "Where the pair sits on the anodic-index scale" : "Where the pair sits in the series" }),

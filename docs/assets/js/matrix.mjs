@@ -11,6 +11,8 @@ import {
 import { environmentName, jointHref, materialName } from "./names.mjs";
 import { materialPicker } from "./picker.mjs";
 import { seriesCaveat } from "./caveat.mjs";
+import { serviceForm, serviceUsed } from "./serviceform.mjs";
+import { codedWarnings, servicePair } from "./jointmix.mjs";
 
 // Sequential, colour-blind-safe, monotonic in lightness (readable in grey): light = small ΔE.
 // The shades are the classes cw-heat-0 … cw-heat-6 in couplewise.css: no style attributes, so
@@ -129,12 +131,13 @@ function explain(r, k, names, ds) {
       (p.other_state_V !== null && p.other_state_V !== undefined ? " (the worst other state: " + fmt(p.other_state_V, 3) + " V)" : "") + ".") : null,
     tier ? h("p", { class: "cw-reason", text: "“" + p.verdict + "”: " + tier.meaning }) : null,
     p.by_design && r.by_design_rule ? h("p", { class: "cw-by-design-note" }, h("strong", { text: "CP by design: " }), r.by_design_rule.text) : null,
+    servicePair(r, k, names),
     h("p", {}, h("a", { class: "md-button md-button--primary cw-open-joint", href: jointHref(a, b, r.env), text: "Open this joint" })),
   ];
 }
 
 export async function matrix(root) {
-  const { ui, ds, start, params } = await begin(root, "Matrix", "matrix");
+  const { ui, ds, sp, start, params } = await begin(root, "Matrix", "matrix");
   const eids = new Set(ds.environments.map((e) => e.id));
   const envField = field("cw-env", "Environment", select(environmentOptions(ds), known(eids, params.get("env"), start.env)));
   const chosen = params.has("m") ? params.get("m").split(",").filter(Boolean) : start.materials || [];
@@ -143,6 +146,8 @@ export async function matrix(root) {
   // with "csv": true, and the link then holds it as a data: URL (no inline script under the CSP).
   const csvLink = h("a", { class: "md-button", download: "couplewise-matrix.csv", href: "#", text: "Download CSV" });
   ui.formBox.append(h("div", { class: "cw-row" }, envField.el), h("div", { class: "cw-row" }, picker.el), csvLink);
+  const svc = serviceForm(ds, sp, { id: "cw-sc", get: (k) => params.get(k), envId: () => envField.control.value, onChange: () => changed() });
+  csvLink.before(svc.el);
   let lastReq = null;
   let csvFor = null; // canonical request whose CSV the link holds
   let csvBusy = false;
@@ -166,14 +171,16 @@ export async function matrix(root) {
     const sel = picker.ids();
     const req = { env: envField.control.value };
     if (sel.length) req.materials = sel;
+    const bad = svc.collect(req);
     const p = new URLSearchParams();
     p.set("env", req.env); p.set("m", sel.join(","));
+    for (const [k, v] of svc.entries()) if (v) p.set(k, v);
     writeUrl(p);
     lastReq = req;
     if (csvFor !== canonical(req)) { csvFor = null; csvLink.href = "#"; }
-    return { req, bad: false };
+    return { req, bad };
   }
-  const fieldFor = fieldMap({ env: envField, "materials*": picker.field });
+  const fieldFor = fieldMap({ env: envField, "materials*": picker.field }, svc.fieldFor);
   const names = (id) => materialName(ds, id);
   const update = heatTable(names);
   const panel = h("div", { class: "cw-explain", "aria-live": "polite" });
@@ -184,6 +191,8 @@ export async function matrix(root) {
     openCell = td;
     td.classList.add("cw-cell-open");
     fill(panel, explain(shownResult, Number(td.dataset.k), names, ds));
+    const link = panel.querySelector(".cw-open-joint"); // the joint opens at the same service conditions
+    if (link) { const u = new URL(link.href); for (const [k, v] of svc.entries()) if (v) u.searchParams.set(k, v); link.href = u.href; }
     panel.scrollIntoView({ block: "nearest" });
   }
   ui.result.addEventListener("click", (e) => show(e.target.closest("td.cw-cell")));
@@ -207,7 +216,9 @@ export async function matrix(root) {
         h("strong", { text: BY_DESIGN_MARK }), ": a sacrificial anode or zinc coating on steel, corroding by design."));
     const caveat = seriesCaveat(r.warnings);
     const before = [caveat.banner, legend, panel].filter(Boolean);
-    const rest = [warningsList(caveat.rest), derivation(r.steps), sourcesLine(r.sources, r.data_version)].filter(Boolean);
+    const seen = new Set((r.warnings || []).map((w) => w.message));
+    const rest = [codedWarnings((r.service_warnings || []).filter((w) => !seen.has(w.message))), serviceUsed(r.service_conditions, r.oxygen_supply),
+      r.service_pairs_reason ? h("p", { class: "cw-reason", text: "At the service conditions: " + r.service_pairs_reason + "." }) : null, warningsList(caveat.rest), derivation(r.steps), sourcesLine(r.sources, r.data_version)].filter(Boolean);
     if (wrap.parentNode === ui.result) { // the same table stays in place: replace what is around it
       for (const c of [...ui.result.childNodes]) if (c !== wrap) c.remove();
       wrap.before(...before);
