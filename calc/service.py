@@ -154,8 +154,9 @@ def _source_of(rec, data_field):
 def _flow(given, rec, values, origin, source):
     """Geometry, velocity and the geometry's size, user's first."""
     for key in ("geometry", "velocity_m_s", "diameter_m", "length_m"):
-        if key in given:
-            values[key], origin[key], source[key] = given[key], "user", None
+        if key in given:  # a size given is checked even where its geometry does not use it
+            value = given[key] if key == "geometry" else check(key, given[key])
+            values[key], origin[key], source[key] = value, "user", None
         elif rec.get(DATA_FIELDS[key][0]) is not None:
             values[key], origin[key] = rec[DATA_FIELDS[key][0]], "environment"
             source[key] = _source_of(rec, DATA_FIELDS[key][0])

@@ -198,3 +198,14 @@ def test_slopes_scale_with_absolute_temperature():
     # b = 2.303RT/(αnF): at constant α·n, b ∝ T (Bard & Faulkner 2001, eq. 3.4.11, from memory)
     assert slope_at(0.12, 20.0, 20.0) == 0.12
     assert slope_at(0.12, 76.15, 20.0) / 0.12 == pytest.approx(349.3 / 293.15, rel=1e-12)
+
+
+@pytest.mark.parametrize("field", ["diameter_m", "length_m"])
+def test_a_size_the_geometry_does_not_use_is_still_checked(field):
+    """An infinite or negative size is refused by name even in still water (found by the robustness run)."""
+    from calc import api
+
+    for bad in (float("inf"), -1.0):
+        out = api.call("matrix", {"env": "seawater-quiescent", "materials": ["carbon-steel", "copper"],
+                                  "geometry": "still", field: bad})
+        assert not out["ok"] and out["error"]["field"] == field
