@@ -32,6 +32,7 @@ def main(argv=None):
     p.add_argument("--electrodes", type=int, default=1000, help="electrode requests per throughput pass (default 1000)")
     p.add_argument("--build-repeats", type=int, default=2, help="unchanged rebuilds per dataset (default 2)")
     p.add_argument("--factor", type=int, default=10, help="size of the synthetic dataset (default 10x)")
+    p.add_argument("--tablet", action="store_true", help="start-up also as a tablet: one CPU (taskset), CPU throttling 4x")
     p.add_argument("--only", default=",".join(ALL), help="comma-separated subset of: " + ", ".join(ALL))
     p.add_argument("--json", dest="json_out", help="also write every figure to this JSON file")
     ns = p.parse_args(argv)
@@ -65,6 +66,8 @@ def main(argv=None):
             try:
                 if "startup" in only:
                     results["startup"] = startup.run(srv, ns.runs)
+                    if ns.tablet:
+                        results["startup_tablet"] = startup.run(srv, ns.runs, tablet=True)
                 if "latency" in only:
                     results["latency"] = interaction.run(srv, ns.changes)
                 if "calc" in only:

@@ -154,7 +154,8 @@ def test_build_time_answer_shows_while_the_runtime_is_away(browser, served, name
         page.wait_for_function("() => performance.getEntriesByName('cw-early-painted').length > 0", timeout=60_000)
         note = page.locator(".cw-result .cw-early-note")
         note.wait_for(timeout=10_000)
-        assert "build time" in note.inner_text().lower()
+        # marked as worked out in advance (the wording of runner.mjs, EARLY_LOADING / EARLY_FAILED)
+        assert "worked out in advance" in note.inner_text().lower()
         page.wait_for_function("() => document.querySelector('.cw-runtime').dataset.stage === 'failed'", timeout=60_000)
         page.wait_for_function("() => /could not start/.test(document.querySelector('.cw-early-note').textContent)",
                                timeout=60_000)
@@ -249,5 +250,6 @@ def test_build_time_answers_equal_the_runtime_answers(guarded, served):
       }
       return rows;
     }""")
-    assert {name for name, _, _ in out} == set(CALCULATORS)
+    # every calculator checked above has its build-time answers here (others may have some too)
+    assert set(CALCULATORS) <= {name for name, _, _ in out}
     assert [r for r in out if not (r[1] and r[2])] == []
