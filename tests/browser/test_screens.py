@@ -74,7 +74,7 @@ def test_home_page_leads_to_the_work_and_the_sections_are_in_reach(served, table
     page.goto(served.url(""))
     cards = page.locator("a.cw-home-card")
     hrefs = [urlparse(h).path.rstrip("/").split("/")[-1] for h in cards.evaluate_all("els => els.map(e => e.href)")]
-    assert hrefs == ["joint", "matrix", "field", "survey", "convert", "couple"]
+    assert hrefs == ["joint", "matrix", "mixed", "passivity", "field", "survey", "cp-design", "convert", "couple"]
     for box in (cards.nth(k).bounding_box() for k in range(cards.count())):
         assert box["height"] >= 88 and box["width"] >= 250, box  # large targets for a finger
     # the section tabs show on a tablet (the theme hides them below 1220 px), with the breadcrumbs
