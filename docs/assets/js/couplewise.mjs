@@ -4,7 +4,7 @@
 // Small and framework-free: the logic lives in calc (Python, run by Pyodide in the worker).
 // Data text is only ever inserted as text (textContent), never as HTML.
 import { loadCalculator } from "./calculators.mjs";
-import { dataset, h, onRuntime, precomputedAnswers, runtimeStatus, servedOverHttp, siteRoot, spec, startWorker } from "./site.mjs";
+import { askVersion, dataset, h, onRuntime, precomputedAnswers, runtimeStatus, servedOverHttp, siteRoot, spec, startWorker } from "./site.mjs";
 
 // For tests and benchmarks that drive the worker from a page (the same worker the page uses).
 export { calculate } from "./site.mjs";
@@ -35,17 +35,6 @@ function initPage() {
 // on a later online visit waits until the user accepts it in a non-blocking notice; then every
 // open page reloads on it, so no page ever mixes the data or calc of two versions.
 let swRegistration = null;
-
-function askVersion(sw) {
-  // The version a service worker serves: {version, data_version, data_date, build}, or null.
-  return new Promise((resolve) => {
-    if (!sw) { resolve(null); return; }
-    const channel = new MessageChannel();
-    const timer = setTimeout(() => resolve(null), 3000);
-    channel.port1.onmessage = (event) => { clearTimeout(timer); resolve(event.data || null); };
-    sw.postMessage({ type: "version" }, [channel.port2]);
-  });
-}
 
 function describe(v) {
   return v ? "data version " + v.data_version + " (" + v.data_date + "), build " + v.build : "";
