@@ -200,9 +200,8 @@ def fill_reading(page, loc, value):
     page.select_option("#cw-s-st", "carbon-steel")
     page.select_option("#cw-s-set", "soil-aerobic")
     page.select_option("#cw-s-el", "CSE")
-    page.select_option("#cw-s-k", "instant-off")
     page.fill("#cw-s-loc", loc)
-    page.fill("#cw-s-v", value)
+    page.fill("#cw-s-off", value)  # the instant-off reading of the test post
     page.fill("#cw-s-t", "14")
 
 
@@ -228,25 +227,25 @@ def test_survey_click_then_enter_saves_once_and_the_message_stays_true(browser, 
         page.wait_for_timeout(1500)
         expect(page.locator(".cw-saved")).to_contain_text("Saved:")
         assert page.inner_text(".cw-form-msg").strip() == ""
-        assert page.inner_text("#cw-s-loc-msg") == "" and page.inner_text("#cw-s-v-msg") == ""
+        assert page.inner_text("#cw-s-loc-msg") == "" and page.inner_text("#cw-s-off-msg") == ""
         assert len(rows(page)) == 1 and stored_count(page) == 1
         # the location in the message: isolated, its override shown, not acting on the message
         saved = page.locator(".cw-saved")
         assert BIDI not in saved.inner_text() and saved.locator("bdi").inner_text() == "TP 4 \\u202Egate"
-        assert rows(page)[0]["reading"].startswith("−0.912 V vs CSE")
+        assert rows(page)[0]["reading"].startswith("instant-off −0.912 V vs CSE")
         # pressing save again on the emptied form: still one reading, the message still true
         page.locator("#cw-s-loc").press("Enter")
         page.wait_for_timeout(500)
         expect(page.locator(".cw-saved")).to_contain_text("Saved:")
         assert page.inner_text(".cw-form-msg").strip() == "" and len(rows(page)) == 1
         # typing again starts a new reading, checked as usual
-        page.fill("#cw-s-v", "1,000")
+        page.fill("#cw-s-off", "1,000")
         page.click("button.cw-add")
-        expect(page.locator("#cw-s-v-msg")).to_contain_text("use 1000 or 1.000")
+        expect(page.locator("#cw-s-off-msg")).to_contain_text("use 1000 or 1.000")
         expect(page.locator(".cw-form-msg")).to_contain_text("Not saved")
         fill_reading(page, "TP 5", "0x10")
         page.click("button.cw-add")
-        expect(page.locator("#cw-s-v-msg")).to_contain_text("hexadecimal")
+        expect(page.locator("#cw-s-off-msg")).to_contain_text("hexadecimal")
         assert stored_count(page) == 1
         assert guard.console_errors == [], guard.console_errors
     finally:
@@ -294,7 +293,7 @@ def test_survey_draft_typed_just_before_a_crash_comes_back(browser, served, tmp_
     try:
         open_log(page, served.url(SURVEY))
         assert page.input_value("#cw-s-loc") == "TP 8, by the culvert"
-        assert page.input_value("#cw-s-v") == "-0.874"
+        assert page.input_value("#cw-s-off") == "-0.874"
         assert page.input_value("#cw-s-notes") == "typed just before the crash"
         expect(page.locator(".cw-log-count")).to_have_text("No readings yet.")
     finally:
@@ -324,14 +323,16 @@ def test_survey_csv_import_reads_numbers_by_the_rule_and_round_trips(browser, se
                          csv_row("a1b2c3d4-0002", "TP 2", "1,000") + "\r\n" +
                          csv_row("a1b2c3d4-0003", "TP 3", "0x10") + "\r\n", encoding="utf-8")
         page.set_input_files("#cw-s-import", str(sheet))
-        expect(page.locator(".cw-tools-msg")).to_contain_text("Imported 1 reading; 2 not valid", timeout=RUNTIME_MS)
+        # a file of the older format (one reading per row): imported and judged again
+        expect(page.locator(".cw-tools-msg")).to_contain_text("Imported 1 reading;", timeout=RUNTIME_MS)
+        expect(page.locator(".cw-tools-msg")).to_contain_text("2 not valid")
         expect(page.locator("#cw-s-import-msg")).to_contain_text("row 2: reading_V: “1,000” is ambiguous")
         expect(page.locator("#cw-s-import-msg")).to_contain_text("use 1000 or 1.000")
         # judged again here: -0.912 V CSE instant-off on buried steel is protected (ISO 15589-1:2015 Table 1)
         expect(page.locator(".cw-survey-log tbody tr .cw-verdict")).to_have_attribute("data-verdict", "protected",
                                                                                       timeout=RUNTIME_MS)
         first = rows(page)
-        assert len(first) == 1 and first[0]["reading"].startswith("−0.912 V vs CSE") and first[0]["notes"] == "=sum(a1)"
+        assert len(first) == 1 and first[0]["reading"].startswith("instant-off −0.912 V vs CSE") and first[0]["notes"] == "=sum(a1)"
         # the page's own CSV export comes back as the same log
         with page.expect_download() as dl:
             page.click("button.cw-export-csv")
