@@ -2,7 +2,7 @@
 
 Published checks: the worked examples of MIL-HDBK-1004/10 (1990), read in the public copy that
 UFC 3-570-02N (2004) reproduces (page numbers are the handbook's), and of
-USACE ETL 1110-9-10 (1991), read in its public transcription (page
+USACE ETL 1110-9-10 (1991), read in its public copy (page
 numbers are the ETL's). The handbooks compute in ohm-centimetres and feet with a rounded shape
 function K; the engine computes Dwight's equation exactly, so a few results differ in the third
 figure: the tolerances say by how much.

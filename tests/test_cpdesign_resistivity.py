@@ -33,7 +33,7 @@ def test_feet_form_agrees_with_the_si_form():
 
 def test_mil_hdbk_419a_example():
     # MIL-HDBK-419A, Grounding, Bonding and Shielding, Volume II, eq. (11) and its example beside Figure 11
-    # (read in a public transcription; the year, 1987, is recalled): 20 ft spacing,
+    # (read in a public copy; the year, 1987, is recalled): 20 ft spacing,
     # 2 Ω: 20 ft × 30.5 cm/ft = 610 cm, ρ = 7662 Ω·cm (its rounding); exactly 2π × 609.6 cm × 2 Ω = 7660.5 Ω·cm:
     # tolerance 0.05 %
     assert wenner(20 * FT_M, 2.0) * 100 == pytest.approx(7662, rel=5e-4)

@@ -6,9 +6,9 @@ converted exactly):
 - MIL-HDBK-1004/10 (1990) Section 9, the elevated steel water tank (handbook pp. 158-168) and the
   hot-water storage tank (p. 189), read in the public copy that UFC 3-570-02N (2004) reproduces;
 - UFC 3-570-02A (2005) Appendix D (TM 5-811-7): the elevated tank (eq D-4 to D-9) and the elevated
-  tank subject to freezing, read in a public transcription;
+  tank subject to freezing, read in a public copy;
 - USACE ETL 1110-9-10 (1991): eq 1-13 and 1-14 and the tank examples of paragraphs 2-6 to 2-8
-  (pp. 72, 83, 93-96, 100, 106-108), read in a public transcription.
+  (pp. 72, 83, 93-96, 100, 106-108), read in a public copy.
 
 The handbooks print their results rounded, sometimes cut rather than rounded: the tolerances are
 half a unit of the last printed figure unless a comment says otherwise.

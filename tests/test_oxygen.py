@@ -27,7 +27,7 @@ SALINITIES = [0.0, 5.0, 10.0, 20.0, 30.0, 35.0, 40.0]
 def test_solubility_matches_gsw_o2sol_sp_pt(t, s):
     # gsw.O2sol_SP_pt (TEOS-10 GSW 3.6) codes the same equation (Garcia & Gordon 1992, eq. 8,
     # Table 1, Benson & Krause data, t68 = 1.00024·t): agreement to 1e-9 relative shows the
-    # coefficients and the temperature conversion are transcribed right
+    # coefficients and the temperature conversion are copied right
     assert oxygen.o2_solubility_umol_kg(t, s) == pytest.approx(float(gsw.O2sol_SP_pt(s, t)), rel=1e-9)
 
 
