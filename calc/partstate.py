@@ -2,7 +2,7 @@
 
 - A passive stainless or nickel alloy keeps its passive state only where its passivity holds at
   the service temperature and chloride (:func:`calc.passivity.holds`, with the PREN of its
-  composition limits, :func:`calc.passivity.record_pren`, and the CPT/CCT estimates of its minimum
+  composition limits, :func:`calc.gradepren.record_pren`, and the CPT/CCT estimates of its minimum
   composition); where it does not, the part is judged in its active state and the result says so.
 - Coded warnings, each with its source: a galvanic series applied outside the temperature range it
   was measured in (the environment's ``temperature_range_C``: ASTM G82, LaQue's series 10-27 °C);
@@ -12,7 +12,8 @@
 """
 
 from .derivation import fmt
-from .passivity import cct_estimate, chloride_from_salinity, cpt_estimate, holds, record_pren
+from .gradepren import record_pren
+from .passivity import cct_estimate, chloride_from_salinity, cpt_estimate, holds
 
 #: the state words of a part as the result gives them
 STATES = ("passive", "active")

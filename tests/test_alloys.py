@@ -15,7 +15,8 @@ import pytest
 
 from calc.dataset import current
 from calc.errors import InputError
-from calc.passivity import pren, pren_w, record_pren
+from calc.gradepren import record_pren
+from calc.passivity import pren, pren_w
 from calc.rate import material_faraday_data
 from calc.series import basis_of, material_on
 

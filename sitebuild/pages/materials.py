@@ -1,6 +1,6 @@
 """The materials: one page each, their list, and the galvanic series in flowing seawater."""
 
-from calc.passivity import LIMITS_MAX, LIMITS_MIN, record_pren
+from calc.gradepren import LIMITS_MAX, LIMITS_MIN, record_pren
 
 from ..charts import CHART_PATH, SERIES_NOTE
 from .cite import citation
