@@ -30,10 +30,6 @@ AREA_LOW, AREA_HIGH = 0.001, 1000.0
 AREA_MAX = BOUNDS["area_ratio"].high
 
 
-def _sig(x, n=6):
-    return float(f"{x:.{n}g}")
-
-
 def _plain(value):
     if isinstance(value, (tuple, list)):
         return [_plain(v) for v in value]
